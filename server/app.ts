@@ -1,0 +1,84 @@
+import 'reflect-metadata';
+import path from 'node:path';
+import fs from 'node:fs';
+import connectPgSimple from 'connect-pg-simple';
+import express, { type Express } from 'express';
+import session from 'express-session';
+import helmet from 'helmet';
+import type { Pool } from 'pg';
+import type { DataSource } from 'typeorm';
+import { readConfig, type ServerConfig } from './config.ts';
+import { csrfProtection } from './http/csrf.ts';
+import { errorHandler, notFoundHandler } from './http/error-handler.ts';
+import { requireAuth } from './http/guards.ts';
+import { auditRouter } from './modules/audit/audit.routes.ts';
+import { authRouter } from './modules/auth/auth.routes.ts';
+import { createPassport } from './modules/auth/passport.ts';
+import { healthRouter } from './modules/health/health.routes.ts';
+import { usersRouter } from './modules/users/users.routes.ts';
+
+export interface AppOptions {
+  dataSource: DataSource;
+  config?: ServerConfig;
+  /** Folder of the built client (vite build); served with an SPA fallback when given. */
+  clientDir?: string;
+}
+
+/** Builds the Express app: middleware, routers, error handler. Does not listen. */
+export function createApp({ dataSource: ds, config = readConfig(), clientDir }: AppOptions): Express {
+  const app = express();
+  app.disable('x-powered-by');
+  app.set('trust proxy', 'loopback');
+  app.use(
+    helmet({
+      contentSecurityPolicy: {
+        directives: {
+          defaultSrc: ["'self'"],
+          imgSrc: ["'self'", 'data:', 'blob:'],
+          styleSrc: ["'self'", "'unsafe-inline'"],
+          fontSrc: ["'self'", 'data:'],
+          objectSrc: ["'none'"],
+          frameSrc: ["'self'", 'blob:'],
+          upgradeInsecureRequests: null,
+        },
+      },
+    }),
+  );
+
+  const PgStore = connectPgSimple(session);
+  const pool = (ds.driver as unknown as { master: Pool }).master;
+  const api = express.Router();
+  api.use(express.json({ limit: '1mb' }));
+  api.use(
+    session({
+      name: 'bw.sid',
+      store: new PgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 }),
+      secret: config.sessionSecret,
+      resave: false,
+      saveUninitialized: false,
+      rolling: true,
+      cookie: { httpOnly: true, sameSite: 'lax', secure: false, maxAge: 12 * 60 * 60 * 1000 },
+    }),
+  );
+  const passport = createPassport(ds);
+  api.use(passport.initialize());
+  api.use(passport.session());
+  api.use(csrfProtection);
+
+  api.use('/health', healthRouter(ds));
+  api.use('/auth', authRouter(passport, { loginLimit: config.loginRateLimit }));
+  api.use(requireAuth);
+  api.use('/users', usersRouter(ds));
+  api.use('/audit', auditRouter(ds));
+  api.use(notFoundHandler);
+  api.use(errorHandler);
+
+  app.use('/api', api);
+
+  if (clientDir && fs.existsSync(path.join(clientDir, 'index.html'))) {
+    app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
+    app.get(/^(?!\/api\/).*/, (_req, res) => res.sendFile(path.join(clientDir, 'index.html')));
+  }
+  app.use(errorHandler);
+  return app;
+}

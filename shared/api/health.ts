@@ -1,0 +1,4 @@
+export interface HealthResponse {
+  status: 'ok' | 'degraded';
+  database: 'ok' | 'unreachable';
+}

@@ -1,0 +1,22 @@
+export { LabelFormatError } from './errors.ts';
+export { DATA_IDENTIFIERS, describeDataIdentifier, isDataIdentifier, splitDataIdentifier } from './data-identifiers.ts';
+export {
+  DEFAULT_SUBSTITUTES,
+  EOT,
+  FORMAT_06,
+  GS,
+  MESSAGE_HEADER,
+  RS,
+  formatLabel,
+  normaliseSeparators,
+  parseLabel,
+} from './iso-15434.ts';
+export type { LabelElement, LabelFields, ParseLabelOptions, ParsedLabel, SeparatorSubstitutes } from './iso-15434.ts';
+export {
+  DEFAULT_PURCHASE_ORDER_PATTERN,
+  classifyPlainCode,
+  makeContainerCode,
+  makeLotCode,
+  parseOwnCode,
+} from './own-codes.ts';
+export type { ClassifyOptions, OwnCode, OwnCodeKind, OwnCodeOptions, PlainCodeKind } from './own-codes.ts';

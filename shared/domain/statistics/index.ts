@@ -1,0 +1,16 @@
+export { StatisticsInputError } from './errors.ts';
+export { describe, percentile } from './describe.ts';
+export type { Description } from './describe.ts';
+export { capability } from './capability.ts';
+export type { Capability, CapabilityInput } from './capability.ts';
+export { histogram, MAX_RULE_BINS } from './histogram.ts';
+export type { BinWidthRule, Histogram, HistogramOptions } from './histogram.ts';
+export { erf, erfc, normalCdf } from './normal.ts';
+export { andersonDarling, andersonDarlingBand, andersonDarlingFactor, AD_CRITICAL } from './anderson-darling.ts';
+export type { AndersonDarling, AndersonDarlingBand } from './anderson-darling.ts';
+export { ksTwoSample, kolmogorovQ, KS_C_ALPHA } from './ks-two-sample.ts';
+export type { KsTwoSample } from './ks-two-sample.ts';
+export { bimodalityCoefficient, BIMODALITY_THRESHOLD } from './bimodality.ts';
+export type { Bimodality } from './bimodality.ts';
+export { xbarIndividualsLimits, INDIVIDUALS_FACTOR, MOVING_RANGE_D4 } from './control-limits.ts';
+export type { IndividualsLimits } from './control-limits.ts';
