@@ -6,7 +6,7 @@ const apiPort = Number(process.env.PORT ?? 5180);
 
 export default defineConfig({
   plugins: [react(), tailwindcss()],
-  build: { outDir: 'dist', emptyOutDir: true, chunkSizeWarningLimit: 1500 },
+  build: { outDir: process.env.BINWRIGHT_DIST_DIR ?? 'dist', emptyOutDir: true, chunkSizeWarningLimit: 1500 },
   server: {
     port: Number(process.env.BINWRIGHT_DEV_PORT ?? 5173),
     strictPort: true,

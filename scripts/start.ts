@@ -68,7 +68,7 @@ async function main() {
     sink = await startSmtpSink({ port: config.smtp.port, folder: path.join(config.dataDir, 'mail') });
     log(`Mail sink listening on 127.0.0.1:${sink.port}; messages are kept in ${sink.folder}.`);
 
-    const clientDir = path.resolve('dist');
+    const clientDir = path.resolve(process.env.BINWRIGHT_DIST_DIR ?? 'dist');
     if (process.env.BINWRIGHT_SKIP_BUILD !== '1') {
       log('Building the client…');
       await build({ logLevel: 'warn', mode: 'production' });
