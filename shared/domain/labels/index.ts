@@ -1,4 +1,5 @@
 export { LabelFormatError } from './errors.ts';
+export { canonicalLabelText } from './canonical.ts';
 export { DATA_IDENTIFIERS, describeDataIdentifier, isDataIdentifier, splitDataIdentifier } from './data-identifiers.ts';
 export {
   DEFAULT_SUBSTITUTES,

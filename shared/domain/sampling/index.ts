@@ -65,3 +65,10 @@ export {
   type SwitchingState,
   type SwitchingStep,
 } from './switching.ts';
+export {
+  SAMPLING_METHODS,
+  SAMPLING_METHOD_LABELS,
+  aqlsForMethod,
+  isSamplingMethod,
+  type SamplingMethod,
+} from './methods.ts';
