@@ -5,6 +5,7 @@ import connectPgSimple from 'connect-pg-simple';
 import express, { type Express } from 'express';
 import session from 'express-session';
 import helmet from 'helmet';
+import type { Transporter } from 'nodemailer';
 import type { Pool } from 'pg';
 import type { DataSource } from 'typeorm';
 import { readConfig, type ServerConfig } from './config.ts';
@@ -14,18 +15,25 @@ import { requireAuth } from './http/guards.ts';
 import { auditRouter } from './modules/audit/audit.routes.ts';
 import { authRouter } from './modules/auth/auth.routes.ts';
 import { createPassport } from './modules/auth/passport.ts';
+import { createMailTransport } from './modules/mail/mail.service.ts';
+import { mailRouter } from './modules/mail/mail.routes.ts';
 import { healthRouter } from './modules/health/health.routes.ts';
 import { usersRouter } from './modules/users/users.routes.ts';
+import { partTypesRouter } from './modules/catalog/part-types.routes.ts';
+import { suppliersRouter } from './modules/suppliers/suppliers.routes.ts';
 
 export interface AppOptions {
   dataSource: DataSource;
   config?: ServerConfig;
   /** Folder of the built client (vite build); served with an SPA fallback when given. */
   clientDir?: string;
+  /** SMTP transport for outgoing mail; built from config when absent. */
+  mailTransport?: Transporter;
 }
 
 /** Builds the Express app: middleware, routers, error handler. Does not listen. */
-export function createApp({ dataSource: ds, config = readConfig(), clientDir }: AppOptions): Express {
+export function createApp({ dataSource: ds, config = readConfig(), clientDir, mailTransport }: AppOptions): Express {
+  const transport = mailTransport ?? createMailTransport(config);
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
@@ -70,6 +78,9 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir }: 
   api.use(requireAuth);
   api.use('/users', usersRouter(ds));
   api.use('/audit', auditRouter(ds));
+  api.use('/part-types', partTypesRouter(ds));
+  api.use('/suppliers', suppliersRouter(ds));
+  api.use('/mail', mailRouter(ds, config, transport));
   api.use(notFoundHandler);
   api.use(errorHandler);
 

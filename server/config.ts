@@ -5,7 +5,17 @@ export interface ServerConfig {
   port: number;
   dataDir: string;
   db: { host: string; port: number; database: string; user: string; password?: string };
-  smtp: { host: string; port: number };
+  smtp: {
+    host: string;
+    port: number;
+    user?: string;
+    pass?: string;
+    /** true for implicit TLS (port 465); the local sink speaks plain SMTP. */
+    secure: boolean;
+    from: string;
+    /** Folder where the local sink keeps messages (shown on the Outbox page). */
+    sinkFolder: string;
+  };
   sessionSecret: string;
   production: boolean;
   loginRateLimit: number;
@@ -23,7 +33,15 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
       user: env.BINWRIGHT_DB_USER ?? 'binwright',
       password: env.BINWRIGHT_DB_PASSWORD,
     },
-    smtp: { host: '127.0.0.1', port: Number(env.BINWRIGHT_SMTP_PORT ?? 2525) },
+    smtp: {
+      host: env.BINWRIGHT_SMTP_HOST ?? '127.0.0.1',
+      port: Number(env.BINWRIGHT_SMTP_PORT ?? 2525),
+      user: env.BINWRIGHT_SMTP_USER || undefined,
+      pass: env.BINWRIGHT_SMTP_PASS || undefined,
+      secure: env.BINWRIGHT_SMTP_SECURE === 'true',
+      from: env.BINWRIGHT_MAIL_FROM ?? 'Binwright quality <quality@harrowpoint.test>',
+      sinkFolder: path.join(dataDir, 'mail'),
+    },
     sessionSecret: env.BINWRIGHT_SESSION_SECRET ?? 'binwright-local-session-secret-change-me',
     production: env.NODE_ENV === 'production',
     loginRateLimit: Number(env.BINWRIGHT_LOGIN_LIMIT ?? 10),

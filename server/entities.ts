@@ -2,8 +2,10 @@ import { AuditEntry } from './modules/audit/audit-entry.entity.ts';
 import { GainBinRow, GainBinSchemeVersion } from './modules/catalog/gain-bin-scheme.entity.ts';
 import { PartType } from './modules/catalog/part-type.entity.ts';
 import { Lot, LotDocument } from './modules/lots/lot.entity.ts';
+import { OutgoingMail, OutgoingMailAttachment } from './modules/mail/outgoing-mail.entity.ts';
+import { SiteSetting } from './modules/settings/site-setting.entity.ts';
 import { Supplier, SupplierContact, SupplierPart } from './modules/suppliers/supplier.entity.ts';
 import { User } from './modules/users/user.entity.ts';
 
 /** Every entity class, registered with the DataSource explicitly (no globs). */
-export const entities = [User, AuditEntry, PartType, GainBinSchemeVersion, GainBinRow, Supplier, SupplierContact, SupplierPart, Lot, LotDocument];
+export const entities = [User, AuditEntry, PartType, GainBinSchemeVersion, GainBinRow, Supplier, SupplierContact, SupplierPart, Lot, LotDocument, SiteSetting, OutgoingMail, OutgoingMailAttachment];

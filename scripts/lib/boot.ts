@@ -4,6 +4,7 @@ import type { Server } from 'node:http';
 import type { DataSource } from 'typeorm';
 import { readConfig, type ServerConfig } from '../../server/config.ts';
 import { createDataSource } from '../../server/data-source.ts';
+import { createMailTransport, startMailWorker } from '../../server/modules/mail/mail.service.ts';
 import { startSmtpSink, type SmtpSink } from '../../server/modules/mail/smtp-sink.ts';
 import { seedDemo } from '../../seed/demo.ts';
 import { DEMO_PASSWORD, DEMO_USERS } from '../../seed/demo-users.ts';
@@ -14,7 +15,7 @@ export const log = (l: string) => console.log(`[binwright] ${l}`);
 export interface Backend {
   config: ServerConfig;
   ds: DataSource;
-  sink: SmtpSink;
+  sink: SmtpSink | null;
   host: string;
   /** Registers an extra thing to close on shutdown (HTTP server, Vite dev server). */
   onStop(fn: () => Promise<void> | void): void;
@@ -27,6 +28,8 @@ export interface Backend {
 export async function bootBackend(): Promise<Backend> {
   const base = readConfig();
   const host = process.env.BINWRIGHT_HOST ?? '127.0.0.1';
+  // The local sink runs unless a real relay is configured.
+  const localSmtp = !process.env.BINWRIGHT_SMTP_HOST;
   const stoppers: (() => Promise<void> | void)[] = [];
   let cluster: RunningCluster | null = null;
   let stopping = false;
@@ -50,7 +53,7 @@ export async function bootBackend(): Promise<Backend> {
     if (!(await portIsFree(base.port, host))) {
       throw new StartupError(`Port ${base.port} on ${host} is already in use. Set PORT to a free port, e.g.  PORT=5190 npm start`);
     }
-    if (!(await portIsFree(base.smtp.port))) {
+    if (localSmtp && !(await portIsFree(base.smtp.port))) {
       throw new StartupError(`The mail sink port ${base.smtp.port} is already in use. Set BINWRIGHT_SMTP_PORT to a free port.`);
     }
     cluster = await startCluster({ dataDir: path.join(base.dataDir, 'postgres'), port: base.db.port, database: base.db.database, log });
@@ -63,9 +66,16 @@ export async function bootBackend(): Promise<Backend> {
     const applied = await ds.runMigrations({ transaction: 'each' });
     log(applied.length ? `Applied ${applied.length} migration(s).` : 'Database schema is up to date.');
     await seedDemo(ds, log);
-    const sink = await startSmtpSink({ port: config.smtp.port, folder: path.join(config.dataDir, 'mail') });
-    stoppers.push(() => sink.close());
-    log(`Mail sink listening on 127.0.0.1:${sink.port}; messages are kept in ${sink.folder}.`);
+    let sink: SmtpSink | null = null;
+    if (localSmtp) {
+      sink = await startSmtpSink({ port: config.smtp.port, folder: config.smtp.sinkFolder });
+      stoppers.push(() => sink?.close());
+      log(`Mail sink listening on 127.0.0.1:${sink.port}; messages are kept in ${sink.folder}.`);
+    } else {
+      log(`Outgoing mail goes to the SMTP relay ${config.smtp.host}:${config.smtp.port}.`);
+    }
+    const stopWorker = startMailWorker(ds, createMailTransport(config), config.smtp.from);
+    stoppers.push(stopWorker);
     return { config, ds, sink, host, onStop: (fn) => stoppers.push(fn) };
   } catch (e) {
     reportStartError(e);

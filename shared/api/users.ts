@@ -23,12 +23,7 @@ export interface UpdateUserRequest {
   active?: boolean;
 }
 
-export interface Page<T> {
-  items: T[];
-  total: number;
-  page: number;
-  pageSize: number;
-}
+export type { Page } from './page.ts';
 
 export interface AuditRow {
   id: string;

@@ -1,5 +1,6 @@
 import { createBrowserRouter, type RouteObject } from 'react-router-dom';
 import { AdminAuditPage } from './routes/admin/audit.tsx';
+import { AdminMailPage } from './routes/admin/mail.tsx';
 import { AdminUsersPage } from './routes/admin/users.tsx';
 import { AppLayout } from './routes/app-layout.tsx';
 import { AreaPage } from './routes/areas/area-page.tsx';
@@ -22,6 +23,7 @@ export const routes: RouteObject[] = [
       { path: 'catalog', element: <AreaPage area="catalog" /> },
       { path: 'admin/users', element: <AdminUsersPage /> },
       { path: 'admin/audit', element: <AdminAuditPage /> },
+      { path: 'admin/mail', element: <AdminMailPage /> },
       { path: '*', element: <NotFoundPage /> },
     ],
   },

@@ -81,3 +81,15 @@ describe('sign-in in Chromium', () => {
     await page.close();
   });
 });
+
+describe('admin outgoing mail in Chromium', () => {
+  it('a quality engineer opens the Outgoing mail tab and sees the outbox and the sink', async () => {
+    const page = await signIn(ctx, 'quality@harrowpoint.test');
+    await page.getByTestId('user-name').waitFor();
+    await page.goto(`${ctx.baseUrl}/admin/mail`);
+    await page.getByRole('heading', { name: 'Received by the local sink' }).waitFor();
+    await page.getByRole('table', { name: 'Outgoing mail' }).waitFor();
+    await page.screenshot({ path: `${SHOTS}/admin-mail.png`, fullPage: true });
+    await page.close();
+  });
+});

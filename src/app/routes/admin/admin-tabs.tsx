@@ -11,6 +11,9 @@ export function AdminTabs() {
       <NavLink to="/admin/audit" className={tab}>
         Audit trail
       </NavLink>
+      <NavLink to="/admin/mail" className={tab}>
+        Outgoing mail
+      </NavLink>
     </nav>
   );
 }

@@ -1,0 +1,246 @@
+import type { DataSource, EntityManager } from 'typeorm';
+import type { SessionUser } from '../../../shared/api/auth.ts';
+import type { CorrectMeasurementRequest, MeasurementRow, MeasurementSort, RecordMeasurementRequest } from '../../../shared/api/measurements.ts';
+import type { Page } from '../../../shared/api/users.ts';
+import { checkReading, limitFlags, type RawReading, type Reading } from '../../../shared/domain/inspection/index.ts';
+import { normaliseHfe, normaliseVbeMv } from '../../../shared/domain/normalise/index.ts';
+import { AppError } from '../../http/app-error.ts';
+import { recordAudit } from '../audit/audit.service.ts';
+import { assertMeasurable, loadLotContext } from '../bench/lot-context.ts';
+import type { PartType } from '../catalog/part-type.entity.ts';
+import { Measurement } from './measurement.entity.ts';
+import type { MeasurementSession } from './measurement-session.entity.ts';
+import { markInspecting, openSessionOf } from './sessions.service.ts';
+
+/** Converts and checks a reading; 422 naming each bad field. */
+export function readingOrThrow(raw: RawReading): Reading {
+  const { reading, errors } = checkReading(raw);
+  if (!reading) throw AppError.unprocessable(`Check ${errors.map((e) => e.field).join(', ')}.`, errors);
+  return reading;
+}
+
+/** hFE and Vbe referred to 25 °C with the part type's coefficients (shared/domain/normalise). */
+export function normalise(reading: Reading, ambientC: number, part: Pick<PartType, 'hfeTcPctPerC' | 'vbeTcMvPerC'>): { hfe25: number; vbeMv25: number } {
+  return {
+    hfe25: normaliseHfe(reading.hfe, ambientC, part.hfeTcPctPerC),
+    vbeMv25: normaliseVbeMv(reading.vbeMv, ambientC, part.vbeTcMvPerC),
+  };
+}
+
+interface RowExtras {
+  ambient_c: number;
+  creator_name: string;
+}
+
+function toRow(m: Measurement, extras: RowExtras, part: PartType): MeasurementRow {
+  return {
+    id: String(m.id),
+    sessionId: m.sessionId,
+    position: m.position,
+    hfe: m.hfe,
+    vbeMv: m.vbeMv,
+    vceSatMv: m.vceSatMv,
+    leakageNa: m.leakageNa,
+    hfe25: m.hfe25,
+    vbeMv25: m.vbeMv25,
+    ambientC: extras.ambient_c,
+    source: m.source,
+    supersedesId: m.supersedesId === null ? null : String(m.supersedesId),
+    superseded: m.superseded,
+    correctionReason: m.correctionReason,
+    createdByName: extras.creator_name,
+    createdAt: new Date(m.createdAt).toISOString(),
+    flags: limitFlags(part, m.hfe25, m.vbeMv25),
+  };
+}
+
+async function insertReading(
+  m: EntityManager,
+  actor: SessionUser,
+  session: MeasurementSession,
+  part: PartType,
+  position: number,
+  reading: Reading,
+  extra: { supersedesId?: string; correctionReason?: string } = {},
+): Promise<Measurement> {
+  const { hfe25, vbeMv25 } = normalise(reading, session.ambientC, part);
+  const row = m.create(Measurement, {
+    lotId: session.lotId,
+    sessionId: session.id,
+    position,
+    hfe: reading.hfe,
+    vbeMv: reading.vbeMv,
+    vceSatMv: reading.vceSatMv,
+    leakageNa: reading.leakageNa,
+    hfe25,
+    vbeMv25,
+    source: 'grid',
+    sourceRow: null,
+    supersedesId: extra.supersedesId ?? null,
+    superseded: false,
+    correctionReason: extra.correctionReason ?? null,
+    createdBy: actor.id,
+  });
+  return m.save(row);
+}
+
+/**
+ * Records one part's reading from the entry grid. A position that already has a current reading
+ * answers 409 naming `position`: change a reading only through a correction.
+ */
+export async function recordMeasurement(ds: DataSource, actor: SessionUser, lotId: number, input: RecordMeasurementRequest): Promise<MeasurementRow> {
+  const reading = readingOrThrow(input);
+  return ds.transaction(async (m) => {
+    const { lot, partType } = await loadLotContext(m, lotId, true);
+    assertMeasurable(lot);
+    const session = await openSessionOf(m, lotId, input.sessionId);
+    if (input.position > lot.quantity) {
+      throw AppError.unprocessable(`Position ${input.position} is beyond the lot of ${lot.quantity} parts.`, [{ field: 'position', message: `position must be 1–${lot.quantity}` }]);
+    }
+    const existing = await m.findOneBy(Measurement, { lotId, position: input.position, superseded: false });
+    if (existing) {
+      throw AppError.conflict(`Position ${input.position} already has a reading (#${existing.id}); record a correction to change it.`, [
+        { field: 'position', message: `position ${input.position} already measured` },
+      ]);
+    }
+    const saved = await insertReading(m, actor, session, partType, input.position, reading);
+    await markInspecting(m, actor, lot);
+    return toRow(saved, { ambient_c: session.ambientC, creator_name: actor.name }, partType);
+  });
+}
+
+/**
+ * A correction: the old reading stays, marked superseded, and a new reading names it. Both in
+ * one transaction with the audit entry.
+ */
+export async function correctMeasurement(
+  ds: DataSource,
+  actor: SessionUser,
+  lotId: number,
+  measurementId: string,
+  input: CorrectMeasurementRequest,
+): Promise<MeasurementRow> {
+  const reading = readingOrThrow(input);
+  return ds.transaction(async (m) => {
+    const { lot, partType } = await loadLotContext(m, lotId, true);
+    assertMeasurable(lot);
+    const session = await openSessionOf(m, lotId, input.sessionId);
+    const old = await m.findOneBy(Measurement, { id: measurementId, lotId });
+    if (!old) throw AppError.notFound(`Measurement ${measurementId} of lot ${lotId}`);
+    if (old.superseded) throw AppError.conflict(`Measurement ${measurementId} is already superseded; correct the current reading of position ${old.position}.`);
+    await m.update(Measurement, { id: old.id }, { superseded: true });
+    const saved = await insertReading(m, actor, session, partType, old.position, reading, { supersedesId: old.id, correctionReason: input.reason.trim() });
+    await recordAudit(m, {
+      actor,
+      action: 'measurement.correct',
+      entityType: 'lot',
+      entityId: lotId,
+      before: { measurementId: old.id, position: old.position, hfe: old.hfe, vbeMv: old.vbeMv, vceSatMv: old.vceSatMv, leakageNa: old.leakageNa },
+      after: { measurementId: saved.id, position: saved.position, hfe: saved.hfe, vbeMv: saved.vbeMv, vceSatMv: saved.vceSatMv, leakageNa: saved.leakageNa },
+      note: input.reason.trim().slice(0, 500),
+    });
+    return toRow(saved, { ambient_c: session.ambientC, creator_name: actor.name }, partType);
+  });
+}
+
+const SORT_SQL: Record<MeasurementSort, string> = {
+  position: 'm.position',
+  hfe25: 'm.hfe_25',
+  vbeMv25: 'm.vbe_mv_25',
+  createdAt: 'm.created_at',
+};
+
+export interface MeasurementQuery {
+  page: number;
+  pageSize: number;
+  sort: MeasurementSort;
+  dir: 'asc' | 'desc';
+  /** Include superseded readings (the full history). */
+  history: boolean;
+  /** Only readings outside a limit. */
+  flagged: boolean;
+}
+
+interface RawRow {
+  id: string;
+  session_id: number;
+  position: number;
+  hfe: number;
+  vbe_mv: number;
+  vce_sat_mv: number | null;
+  leakage_na: number | null;
+  hfe_25: number;
+  vbe_mv_25: number;
+  source: 'grid' | 'import';
+  supersedes_id: string | null;
+  superseded: boolean;
+  correction_reason: string | null;
+  created_at: Date;
+  ambient_c: number;
+  creator_name: string;
+}
+
+/** SQL condition (on alias m) for readings outside the part's limits at 25 °C; params appended. */
+export function outsideLimitsSql(part: PartType, params: unknown[]): string {
+  const terms: string[] = [];
+  const add = (sql: string, v: number | null) => {
+    if (v === null) return;
+    params.push(v);
+    terms.push(sql.replace('?', `$${params.length}`));
+  };
+  add('m.hfe_25 < ?', part.hfeMin);
+  add('m.hfe_25 > ?', part.hfeMax);
+  add('m.vbe_mv_25 < ?', part.vbeMinMv);
+  add('m.vbe_mv_25 > ?', part.vbeMaxMv);
+  return terms.length ? `(${terms.join(' OR ')})` : 'false';
+}
+
+/** A page of a lot's readings, sorted and filtered on the server. */
+export async function listMeasurements(ds: DataSource, lotId: number, q: MeasurementQuery): Promise<Page<MeasurementRow>> {
+  const { partType } = await loadLotContext(ds.manager, lotId);
+  const params: unknown[] = [lotId];
+  const where = ['m.lot_id = $1'];
+  if (!q.history) where.push('NOT m.superseded');
+  if (q.flagged) where.push(outsideLimitsSql(partType, params));
+  const whereSql = where.join(' AND ');
+  const [{ total }] = (await ds.query(`SELECT count(*)::int AS total FROM measurement m WHERE ${whereSql}`, params)) as { total: number }[];
+  params.push(q.pageSize, (q.page - 1) * q.pageSize);
+  const rows = (await ds.query(
+    `SELECT m.id, m.session_id, m.position, m.hfe, m.vbe_mv, m.vce_sat_mv, m.leakage_na, m.hfe_25, m.vbe_mv_25,
+            m.source, m.supersedes_id, m.superseded, m.correction_reason, m.created_at, s.ambient_c, u.name AS creator_name
+       FROM measurement m
+       JOIN measurement_session s ON s.id = m.session_id
+       JOIN app_user u ON u.id = m.created_by
+      WHERE ${whereSql}
+      ORDER BY ${SORT_SQL[q.sort]} ${q.dir === 'desc' ? 'DESC' : 'ASC'}, m.id ASC
+      LIMIT $${params.length - 1} OFFSET $${params.length}`,
+    params,
+  )) as RawRow[];
+  return {
+    items: rows.map((r) =>
+      toRow(
+        {
+          id: r.id,
+          sessionId: r.session_id,
+          position: r.position,
+          hfe: r.hfe,
+          vbeMv: r.vbe_mv,
+          vceSatMv: r.vce_sat_mv,
+          leakageNa: r.leakage_na,
+          hfe25: r.hfe_25,
+          vbeMv25: r.vbe_mv_25,
+          source: r.source,
+          supersedesId: r.supersedes_id,
+          superseded: r.superseded,
+          correctionReason: r.correction_reason,
+          createdAt: r.created_at,
+        } as Measurement,
+        r,
+        partType,
+      ),
+    ),
+    total,
+    page: q.page,
+    pageSize: q.pageSize,
+  };
+}
