@@ -21,6 +21,9 @@ import { healthRouter } from './modules/health/health.routes.ts';
 import { usersRouter } from './modules/users/users.routes.ts';
 import { partTypesRouter } from './modules/catalog/part-types.routes.ts';
 import { suppliersRouter } from './modules/suppliers/suppliers.routes.ts';
+import { labelsRouter } from './modules/labels/labels.routes.ts';
+import { lotsRouter } from './modules/lots/lots.routes.ts';
+import { settingsRouter } from './modules/settings/settings.routes.ts';
 
 export interface AppOptions {
   dataSource: DataSource;
@@ -80,6 +83,9 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir, ma
   api.use('/audit', auditRouter(ds));
   api.use('/part-types', partTypesRouter(ds));
   api.use('/suppliers', suppliersRouter(ds));
+  api.use('/labels', labelsRouter(ds));
+  api.use('/lots', lotsRouter(ds, { dataDir: config.dataDir }));
+  api.use('/settings', settingsRouter(ds));
   api.use('/mail', mailRouter(ds, config, transport));
   api.use(notFoundHandler);
   api.use(errorHandler);

@@ -117,6 +117,11 @@ function majorOf(binDir: string): string {
   return m ? m[1] : '?';
 }
 
+/** The server binaries' folder (installing them when root and missing). */
+export function pgBinDir(log: (l: string) => void = () => {}): string {
+  return ensureBinaries(log);
+}
+
 export async function startCluster(opts: ClusterOptions): Promise<RunningCluster> {
   const log = opts.log ?? ((l: string) => console.log(l));
   const bin = ensureBinaries(log);
@@ -176,6 +181,20 @@ export async function startCluster(opts: ClusterOptions): Promise<RunningCluster
       '--encoding=UTF8', '--no-locale', '--no-instructions',
     ]);
     if (init.status !== 0) throw new StartupError(`initdb failed:\n${init.out}`);
+  }
+
+  // A cluster already running on this data folder (e.g. `npm start` in another terminal) is used
+  // as it is and left running.
+  let attached = false;
+  if (!opts.throwaway && fs.existsSync(path.join(pgdata, 'postmaster.pid'))) {
+    attached = asUser(user, path.join(bin, 'pg_ctl'), ['-D', pgdata, 'status']).status === 0;
+  }
+  if (attached) {
+    log(`Using the PostgreSQL already running on ${pgdata}.`);
+    const pid = fs.readFileSync(path.join(pgdata, 'postmaster.pid'), 'utf8').split('\n');
+    const runningPort = Number(pid[3]);
+    const runningSocket = pid[4] || socketDir;
+    return { host: runningSocket, port: runningPort, database: opts.database, user: SUPERUSER, socketDir: runningSocket, stop: () => {} };
   }
 
   if (!(await portIsFree(opts.port))) {

@@ -41,19 +41,21 @@ function receiveOneFile(maxBytes: number): RequestHandler {
 
 export function documentsRouter(ds: DataSource, store: DocumentStore, maxBytes = DOCUMENT_MAX_BYTES): Router {
   const r = Router({ mergeParams: true });
+  // The lot id comes from the parent router's path (mergeParams).
+  const lotParam = (req: { params: object }) => positiveId((req.params as Record<string, string>).id, 'id');
 
   r.get('/', async (req, res) => {
-    res.json(await documentsOfLot(ds, positiveId(req.params.id, 'id')));
+    res.json(await documentsOfLot(ds, lotParam(req)));
   });
 
   r.post('/', requireRole('inspector'), receiveOneFile(maxBytes), async (req, res) => {
-    const lotId = positiveId(req.params.id, 'id');
+    const lotId = lotParam(req);
     const doc = await addDocument(ds, store, currentUser(req), lotId, (req.body as Record<string, unknown> | undefined)?.kind, req.file);
     res.status(201).location(doc.contentUrl).json(doc);
   });
 
   r.get('/:docId/content', async (req, res) => {
-    const doc = await findDocument(ds, positiveId(req.params.id, 'id'), positiveId(req.params.docId, 'docId'));
+    const doc = await findDocument(ds, lotParam(req), positiveId(req.params.docId, 'docId'));
     res.setHeader('X-Content-Type-Options', 'nosniff');
     res.setHeader('Cache-Control', 'private, no-store');
     res.attachment(doc.originalName);

@@ -143,7 +143,7 @@ function drawCompact(doc: Doc, lot: LotDetail, W: number, H: number, printedAt: 
   const gap = 1 * MM;
   const topH = H - 2 * m - barH - gap;
   const dm = Math.min(topH, W * 0.36);
-  drawDataMatrix(doc, lot.code, m - dm / 18, m, dm);
+  drawDataMatrix(doc, lot.code, m, m, dm);
   drawCode128(doc, lot.code, m, H - m - barH, W - 2 * m, barH);
 
   const x = m + dm + 1.5 * MM;
