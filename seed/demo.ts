@@ -2,6 +2,7 @@ import type { DataSource } from 'typeorm';
 import { hashPassword } from '../server/modules/auth/password.ts';
 import { recordAudit } from '../server/modules/audit/audit.service.ts';
 import { User } from '../server/modules/users/user.entity.ts';
+import { seedDemoCatalog } from './demo-catalog.ts';
 import { DEMO_PASSWORD, DEMO_USERS } from './demo-users.ts';
 
 /**
@@ -27,5 +28,6 @@ export async function seedDemo(ds: DataSource, log: (l: string) => void = () => 
     }
   });
   if (created) log(`Demo scenario: created ${created} demo users.`);
+  created += await seedDemoCatalog(ds, log);
   return { created };
 }

@@ -24,6 +24,10 @@ import { suppliersRouter } from './modules/suppliers/suppliers.routes.ts';
 import { labelsRouter } from './modules/labels/labels.routes.ts';
 import { lotsRouter } from './modules/lots/lots.routes.ts';
 import { settingsRouter } from './modules/settings/settings.routes.ts';
+import { benchRouter } from './modules/bench/bench.routes.ts';
+import { dispositionRouter } from './modules/disposition/disposition.routes.ts';
+import { measurementsRouter } from './modules/measurements/measurements.routes.ts';
+import { samplingRouter } from './modules/sampling/sampling.routes.ts';
 
 export interface AppOptions {
   dataSource: DataSource;
@@ -84,6 +88,11 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir, ma
   api.use('/part-types', partTypesRouter(ds));
   api.use('/suppliers', suppliersRouter(ds));
   api.use('/labels', labelsRouter(ds));
+  // Bench: full paths (/sampling/plan, /lots/:id/summary, /switching/…, /bench/queue).
+  api.use(samplingRouter(ds));
+  api.use(measurementsRouter(ds));
+  api.use(dispositionRouter(ds));
+  api.use(benchRouter(ds));
   api.use('/lots', lotsRouter(ds, { dataDir: config.dataDir }));
   api.use('/settings', settingsRouter(ds));
   api.use('/mail', mailRouter(ds, config, transport));

@@ -6,6 +6,11 @@ import { OutgoingMail, OutgoingMailAttachment } from './modules/mail/outgoing-ma
 import { SiteSetting } from './modules/settings/site-setting.entity.ts';
 import { Supplier, SupplierContact, SupplierPart } from './modules/suppliers/supplier.entity.ts';
 import { User } from './modules/users/user.entity.ts';
+import { Disposition } from './modules/disposition/disposition.entity.ts';
+import { InstrumentMapping } from './modules/measurements/instrument-mapping.entity.ts';
+import { Measurement } from './modules/measurements/measurement.entity.ts';
+import { MeasurementSession } from './modules/measurements/measurement-session.entity.ts';
+import { SwitchingStateRow } from './modules/sampling/switching-state.entity.ts';
 
 /** Every entity class, registered with the DataSource explicitly (no globs). */
-export const entities = [User, AuditEntry, PartType, GainBinSchemeVersion, GainBinRow, Supplier, SupplierContact, SupplierPart, Lot, LotDocument, SiteSetting, OutgoingMail, OutgoingMailAttachment];
+export const entities = [User, AuditEntry, PartType, GainBinSchemeVersion, GainBinRow, Supplier, SupplierContact, SupplierPart, Lot, LotDocument, SiteSetting, OutgoingMail, OutgoingMailAttachment, MeasurementSession, Measurement, InstrumentMapping, SwitchingStateRow, Disposition];

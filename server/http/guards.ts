@@ -20,13 +20,16 @@ export const requireAuth: RequestHandler = (req, _res, next) => {
 export function requireRole(...roles: Role[]): RequestHandler {
   const allowed = new Set<Role>(roles);
   if (allowed.has('inspector')) allowed.add('quality');
-  return (req, _res, next) => {
+  const guard: RequestHandler & { allowedRoles?: ReadonlySet<Role> } = (req, _res, next) => {
     if (!req.user) return next(AppError.unauthorized());
     if (!allowed.has(req.user.role)) {
       return next(AppError.forbidden(`This needs the role ${[...allowed].join(' or ')}; you are signed in as ${req.user.role}.`));
     }
     next();
   };
+  // Read by the route × role matrix test, which walks the router to find every guard.
+  guard.allowedRoles = allowed;
+  return guard;
 }
 
 export function currentUser(req: Express.Request): SessionUser {

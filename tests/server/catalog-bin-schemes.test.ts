@@ -6,7 +6,7 @@ import { createPart, createSupplierVia, fields, fourBins, insertLot } from './ca
 
 const ctx = useTestApp();
 
-async function postScheme(agent: Agent, partId: number, body: object) {
+function postScheme(agent: Agent, partId: number, body: object) {
   return agent.post(`/api/part-types/${partId}/bin-schemes`).set('x-csrf-token', agent.csrf).send(body);
 }
 

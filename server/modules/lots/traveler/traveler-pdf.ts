@@ -76,6 +76,15 @@ function qty(n: number): string {
   return n.toLocaleString('en-GB').replace(/,/g, ' ');
 }
 
+/** Steps a sheet traveler lists for initials as the lot moves through receiving inspection. */
+const ROUTE_STEPS = [
+  'Received; label and quantity checked',
+  'Documents checked (CoC, date code, MSL)',
+  'Sample drawn and measured at the bench',
+  'Disposition signed',
+  'Binned, stored or released to the line',
+];
+
 /** A full traveler: header band, lot code, Code 128, Data Matrix with the fields, marks. */
 function drawTall(doc: Doc, lot: LotDetail, x: number, y: number, w: number, h: number, printedAt: Date) {
   const s = Math.min(1.6, Math.max(1, w / (92 * MM)));
@@ -84,20 +93,20 @@ function drawTall(doc: Doc, lot: LotDetail, x: number, y: number, w: number, h: 
 
   const band = 8 * MM * s;
   doc.rect(x, cy, w, band).fill(INK);
-  doc.font('Bold').fontSize(10 * s).fillColor('#ffffff').text('LOT TRAVELER', x + 3 * s, cy + (band - 10 * s) / 2, { lineBreak: false });
+  doc.font('Bold').fontSize(10 * s).fillColor('#ffffff').text('LOT TRAVELER', x + 3 * s, cy + (band - 10 * s * 1.25) / 2, { lineBreak: false });
   const right = `Binwright · received ${fmtDate(lot.receivedAt)}`;
   doc.font('Regular').fontSize(7.5 * s);
-  doc.text(right, x + w - doc.widthOfString(right) - 3 * s, cy + (band - 7.5 * s) / 2, { lineBreak: false });
-  cy += band + 3 * MM * s;
+  doc.text(right, x + w - doc.widthOfString(right) - 3 * s, cy + (band - 7.5 * s * 1.25) / 2, { lineBreak: false });
+  cy += band + 2.5 * MM * s;
 
-  line(doc, 'Bold', lot.code, x, cy, w, 24 * s);
-  cy += 24 * s * 1.05;
+  const codeSize = line(doc, 'Bold', lot.code, x, cy, w, 24 * s);
+  cy += doc.font('Bold').fontSize(codeSize).currentLineHeight(true) + 1 * MM * s;
 
   const barH = 14 * MM * s;
   drawCode128(doc, lot.code, x, cy, w, barH);
-  cy += barH + 3 * MM * s;
+  cy += barH + 4 * MM * s;
 
-  const dm = 30 * MM * s;
+  const dm = 34 * MM * s;
   drawDataMatrix(doc, lot.code, x, cy, dm);
   const fx = x + dm + 4 * MM * s;
   const fw = w - dm - 4 * MM * s;
@@ -105,34 +114,58 @@ function drawTall(doc: Doc, lot: LotDetail, x: number, y: number, w: number, h: 
     ['Part', `${lot.partType.partNumber} — ${lot.partType.polarity}, ${lot.partType.packageName}`],
     ['Supplier', `${lot.supplier.name} (${lot.supplier.code})`],
     ['Quantity', `${qty(lot.quantity)} pcs`],
-    ['Date code', lot.dateCode ?? '—'],
+    ['Date code · country', `${lot.dateCode ?? '—'} · ${lot.countryOfOrigin ?? '—'}`],
     ['Supplier lot', lot.supplierLot ?? '—'],
-    ['PO', lot.purchaseOrder ?? '—'],
+    ['Purchase order', lot.purchaseOrder ?? '—'],
   ];
   let fy = cy;
-  const rowH = Math.max(dm / rows.length, 15 * s);
+  const rowH = 21 * s;
   for (const [label, value] of rows) {
     doc.font('Regular').fontSize(6.5 * s).fillColor(SOFT).text(label.toUpperCase(), fx, fy, { lineBreak: false });
-    line(doc, 'Bold', value, fx, fy + 7 * s, fw, 10 * s);
+    line(doc, 'Bold', value, fx, fy + 7.5 * s, fw, 10.5 * s);
     fy += rowH;
   }
-  cy = Math.max(cy + dm, fy) + 2 * MM * s;
+  cy = Math.max(cy + dm, fy) + 1.5 * MM * s;
   line(doc, 'Regular', lot.partType.description, x, cy, w, 8 * s, SOFT);
-  cy += 8 * s * 1.6;
+  cy += 8 * s * 1.6 + 1 * MM * s;
 
   const markH = 11 * MM * s;
   markBox(doc, marks.esdTag, marks.esdLine, x, cy, w, markH, s);
   cy += markH + 2 * MM * s;
   if (marks.mslTag && marks.mslLine) {
     markBox(doc, marks.mslTag, marks.mslLine, x, cy, w, markH, s);
-    cy += markH + 2 * MM * s;
-    const opened = lot.bagOpenedAt ? `Bag opened: ${lot.bagOpenedAt.slice(0, 16).replace('T', ' ')} UTC` : 'Bag opened: ____________________ (date, time, initials)';
-    line(doc, 'Regular', opened, x, cy, w, 8.5 * s);
-    cy += 8.5 * s * 1.6;
+    cy += markH + 2.5 * MM * s;
+    const opened = lot.bagOpenedAt
+      ? `Dry bag opened: ${lot.bagOpenedAt.slice(0, 16).replace('T', ' ')} UTC`
+      : 'Dry bag opened: ____________________ (date, time, initials)';
+    line(doc, 'Regular', opened, x, cy, w, 9 * s);
+    cy += 9 * s * 1.6;
   }
+
+  const footerH = 7 * s * 1.4;
+  const stepH = 8 * MM * Math.min(s, 1.1);
+  if (y + h - footerH - cy > (ROUTE_STEPS.length + 1) * stepH + 6 * MM * s) {
+    cy += 4 * MM * s;
+    doc.font('Bold').fontSize(9 * s).fillColor(INK).text('ROUTE', x, cy, { lineBreak: false });
+    const colDate = x + w * 0.64;
+    const colInit = x + w * 0.84;
+    doc.font('Regular').fontSize(6.5 * s).fillColor(SOFT);
+    doc.text('DATE', colDate, cy + 2 * s, { lineBreak: false });
+    doc.text('INITIALS', colInit, cy + 2 * s, { lineBreak: false });
+    cy += 5 * MM * s;
+    doc.lineWidth(0.6).moveTo(x, cy).lineTo(x + w, cy).stroke(INK);
+    for (const step of ROUTE_STEPS) {
+      line(doc, 'Regular', step, x, cy + (stepH - 9 * s * 1.25) / 2, colDate - x - 4 * s, 9 * s);
+      cy += stepH;
+      doc.lineWidth(0.4).moveTo(x, cy).lineTo(x + w, cy).stroke(SOFT);
+    }
+    doc.lineWidth(0.4).moveTo(colDate - 3 * s, cy - stepH * ROUTE_STEPS.length).lineTo(colDate - 3 * s, cy).stroke(SOFT);
+    doc.moveTo(colInit - 3 * s, cy - stepH * ROUTE_STEPS.length).lineTo(colInit - 3 * s, cy).stroke(SOFT);
+  }
+
   const footer = `Received by ${lot.receivedBy.name} · printed ${printedAt.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
-  const fy2 = Math.max(cy, y + h - 7 * s);
-  if (fy2 + 7 * s <= y + h + 0.5) line(doc, 'Regular', footer, x, fy2, w, 6.5 * s, SOFT);
+  const footY = Math.max(cy + 2 * s, y + h - footerH);
+  if (footY + footerH <= y + h + 1) line(doc, 'Regular', footer, x, footY, w, 7 * s, SOFT);
 }
 
 /** A small label: Data Matrix and lines of text above, Code 128 across the bottom. */
@@ -201,8 +234,8 @@ export function renderTraveler(lot: LotDetail, stockId: TravelerStockId, printed
     doc.on('error', reject);
   });
   if (stock.id === 'a4' || stock.id === 'letter') {
-    const margin = 18 * MM;
-    const w = Math.min(W - 2 * margin, 150 * MM);
+    const margin = 15 * MM;
+    const w = Math.min(W - 2 * margin, 130 * MM);
     drawTall(doc, lot, (W - w) / 2, margin, w, H - 2 * margin, printedAt);
   } else if (stock.heightMm >= 100) {
     const margin = 4 * MM;
