@@ -28,6 +28,7 @@ import { benchRouter } from './modules/bench/bench.routes.ts';
 import { dispositionRouter } from './modules/disposition/disposition.routes.ts';
 import { measurementsRouter } from './modules/measurements/measurements.routes.ts';
 import { samplingRouter } from './modules/sampling/sampling.routes.ts';
+import { binsRouter } from './modules/bins/bins.routes.ts';
 
 export interface AppOptions {
   dataSource: DataSource;
@@ -93,6 +94,8 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir, ma
   api.use(measurementsRouter(ds));
   api.use(dispositionRouter(ds));
   api.use(benchRouter(ds));
+  // Bins: full paths (/containers…, /stock, /lots/:id/screening…, /labels/bins.pdf).
+  api.use(binsRouter(ds));
   api.use('/lots', lotsRouter(ds, { dataDir: config.dataDir }));
   api.use('/settings', settingsRouter(ds));
   api.use('/mail', mailRouter(ds, config, transport));
@@ -103,7 +106,8 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir, ma
 
   if (clientDir && fs.existsSync(path.join(clientDir, 'index.html'))) {
     app.use(express.static(clientDir, { index: false, maxAge: '1h' }));
-    app.get(/^(?!\/api\/).*/, (_req, res) => res.sendFile(path.join(clientDir, 'index.html')));
+    // `root` keeps send's dot-file refusal off the client folder itself (e.g. .data/dist-…).
+    app.get(/^(?!\/api\/).*/, (_req, res) => res.sendFile('index.html', { root: clientDir }));
   }
   app.use(errorHandler);
   return app;

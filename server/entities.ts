@@ -11,6 +11,11 @@ import { InstrumentMapping } from './modules/measurements/instrument-mapping.ent
 import { Measurement } from './modules/measurements/measurement.entity.ts';
 import { MeasurementSession } from './modules/measurements/measurement-session.entity.ts';
 import { SwitchingStateRow } from './modules/sampling/switching-state.entity.ts';
+import { Container } from './modules/bins/container.entity.ts';
+import { ContainerPosition } from './modules/bins/container-position.entity.ts';
+import { LabelPrint } from './modules/bins/label-print.entity.ts';
+import { ScreeningSetupRow } from './modules/bins/screening-setup.entity.ts';
+import { StockMovement } from './modules/bins/stock-movement.entity.ts';
 
 /** Every entity class, registered with the DataSource explicitly (no globs). */
-export const entities = [User, AuditEntry, PartType, GainBinSchemeVersion, GainBinRow, Supplier, SupplierContact, SupplierPart, Lot, LotDocument, SiteSetting, OutgoingMail, OutgoingMailAttachment, MeasurementSession, Measurement, InstrumentMapping, SwitchingStateRow, Disposition];
+export const entities = [User, AuditEntry, PartType, GainBinSchemeVersion, GainBinRow, Supplier, SupplierContact, SupplierPart, Lot, LotDocument, SiteSetting, OutgoingMail, OutgoingMailAttachment, MeasurementSession, Measurement, InstrumentMapping, SwitchingStateRow, Disposition, Container, ContainerPosition, StockMovement, LabelPrint, ScreeningSetupRow];

@@ -4,6 +4,14 @@ import { AdminMailPage } from './routes/admin/mail.tsx';
 import { AdminUsersPage } from './routes/admin/users.tsx';
 import { AppLayout } from './routes/app-layout.tsx';
 import { AreaPage } from './routes/areas/area-page.tsx';
+import { BenchLotPage } from './routes/bench/bench-lot-page.tsx';
+import { BenchQueuePage } from './routes/bench/bench-queue-page.tsx';
+import { CatalogPartTypeDetailPage } from './routes/catalog/part-type-detail.tsx';
+import { CatalogPartTypesPage } from './routes/catalog/part-types.tsx';
+import { CatalogSupplierDetailPage } from './routes/catalog/supplier-detail.tsx';
+import { CatalogSuppliersPage } from './routes/catalog/suppliers.tsx';
+import { DockPage } from './routes/dock/dock.tsx';
+import { LotPage } from './routes/dock/lot.tsx';
 import { HomePage } from './routes/home.tsx';
 import { NotFoundPage } from './routes/not-found.tsx';
 import { SignInPage } from './routes/sign-in.tsx';
@@ -15,12 +23,17 @@ export const routes: RouteObject[] = [
     element: <AppLayout />,
     children: [
       { index: true, element: <HomePage /> },
-      { path: 'dock', element: <AreaPage area="dock" /> },
-      { path: 'bench', element: <AreaPage area="bench" /> },
+      { path: 'dock', element: <DockPage /> },
+      { path: 'dock/lots/:id', element: <LotPage /> },
+      { path: 'bench', element: <BenchQueuePage /> },
+      { path: 'bench/lots/:id', element: <BenchLotPage /> },
       { path: 'bins', element: <AreaPage area="bins" /> },
       { path: 'pairing', element: <AreaPage area="pairing" /> },
       { path: 'suppliers', element: <AreaPage area="suppliers" /> },
-      { path: 'catalog', element: <AreaPage area="catalog" /> },
+      { path: 'catalog', element: <CatalogPartTypesPage /> },
+      { path: 'catalog/part-types/:id', element: <CatalogPartTypeDetailPage /> },
+      { path: 'catalog/suppliers', element: <CatalogSuppliersPage /> },
+      { path: 'catalog/suppliers/:id', element: <CatalogSupplierDetailPage /> },
       { path: 'admin/users', element: <AdminUsersPage /> },
       { path: 'admin/audit', element: <AdminAuditPage /> },
       { path: 'admin/mail', element: <AdminMailPage /> },

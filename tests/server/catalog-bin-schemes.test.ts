@@ -41,7 +41,7 @@ describe('POST /api/part-types/:id/bin-schemes', () => {
     const bins = fourBins();
     bins[2] = { ...bins[2], hfeMin: 190 };
     const res = await postScheme(agent, part.id, { bins }).expect(400);
-    expect(res.body.errors).toEqual([{ field: 'bins[2].hfeMin', message: expect.stringMatching(/overlaps bin 1/) }]);
+    expect(res.body.errors).toEqual([{ field: 'bins[2].hfeMin', message: expect.stringMatching(/overlaps the previous bin \("B"\)/) }]);
   });
 
   it('when a gap is not marked intended, answers 400 naming the later bin; marked, it is accepted', async () => {

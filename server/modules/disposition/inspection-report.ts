@@ -181,7 +181,7 @@ export function renderInspectionReport(data: ReportData): Promise<Buffer> {
   if (s.n > 0 && s.histogram.counts.length) {
     if (doc.y > doc.page.height - 260) doc.addPage();
     doc.moveDown(0.6);
-    drawHistogram(doc, s, left, doc.y, width, 170);
+    drawHistogram(doc, s, left, doc.y, width, 180);
   }
 
   if (s.bins.length) {
@@ -209,6 +209,7 @@ export function renderInspectionReport(data: ReportData): Promise<Buffer> {
     );
   }
   doc.moveDown(0.4);
+  if (doc.y + 80 > doc.page.height - doc.page.margins.bottom) doc.addPage();
   if (d.signature) {
     const sig = d.signature;
     const colour = sig.decision === 'accept' ? PASS : sig.decision === 'reject' ? FAIL : INFO;
@@ -247,8 +248,8 @@ function drawHistogram(doc: PDFKit.PDFDocument, s: LotSummary, x: number, y: num
   hi += pad;
   const plotX = x + 34;
   const plotW = w - 40;
-  const plotY = y + 16;
-  const plotH = h - 40;
+  const plotY = y + 30;
+  const plotH = h - 54;
   const sx = (v: number) => plotX + ((v - lo) / (hi - lo)) * plotW;
   const maxCount = Math.max(1, ...counts);
   const sy = (c: number) => plotY + plotH - (c / maxCount) * plotH;

@@ -1,6 +1,6 @@
 import type { DataSource } from 'typeorm';
 import type { HistogramRuleParam, LotSummary, QuantityStats } from '../../../shared/api/lot-results.ts';
-import { binCounts, type GainBin } from '../../../shared/domain/binning/index.ts';
+import { assignBin, type GainBin } from '../../../shared/domain/binning/index.ts';
 import { REFERENCE_TEMP_C } from '../../../shared/domain/normalise/index.ts';
 import { andersonDarling, capability, describe, histogram, StatisticsInputError, type Description } from '../../../shared/domain/statistics/index.ts';
 import { loadLotContext } from '../bench/lot-context.ts';
@@ -8,9 +8,10 @@ import { GainBinRow } from '../catalog/gain-bin-scheme.entity.ts';
 
 /**
  * The lot's current hFE and Vbe at 25 °C as two Float64Arrays. PostgreSQL packs each column into
- * one bytea of big-endian doubles (float8send + string_agg), which is far cheaper to send and read
- * than 100 000 rows or a text array. Both aggregates run over the same scan, so index i of the two
- * arrays is the same part.
+ * one bytea of big-endian doubles (float8send + string_agg): one row of two values instead of
+ * 100 000 rows, and no float-to-text formatting. Both aggregates run over the same scan, so index i
+ * of the two arrays is the same part. (Measured against array_agg, a text array and the plain rows
+ * in docs/benchmarks.md.)
  */
 export async function loadLotValues(ds: DataSource, lotId: number): Promise<{ hfe: Float64Array; vbe: Float64Array }> {
   const [row] = (await ds.query(
@@ -18,15 +19,16 @@ export async function loadLotValues(ds: DataSource, lotId: number): Promise<{ hf
        FROM measurement WHERE lot_id = $1 AND NOT superseded`,
     [lotId],
   )) as { h: Buffer | null; v: Buffer | null }[];
-  return { hfe: fromBigEndian(row.h), vbe: fromBigEndian(row.v) };
+  return { hfe: fromBigEndian(row?.h ?? null), vbe: fromBigEndian(row?.v ?? null) };
 }
 
 function fromBigEndian(buf: Buffer | null): Float64Array {
-  if (!buf) return new Float64Array(0);
-  const n = buf.length / 8;
-  const out = new Float64Array(n);
-  for (let i = 0; i < n; i++) out[i] = buf.readDoubleBE(i * 8);
-  return out;
+  if (!buf || buf.length === 0) return new Float64Array(0);
+  // A fresh, 8-byte-aligned copy, byte-swapped in place when this machine is little-endian.
+  const copy = Buffer.alloc(buf.length);
+  buf.copy(copy);
+  if (new Uint8Array(new Float64Array([1]).buffer)[0] === 0) copy.swap64();
+  return new Float64Array(copy.buffer, copy.byteOffset, copy.length / 8);
 }
 
 const EMPTY_STATS: QuantityStats = { mean: null, sd: null, min: null, max: null, p05: null, p25: null, median: null, p75: null, p95: null };
@@ -56,8 +58,6 @@ export async function lotSummary(ds: DataSource, lotId: number, rule: HistogramR
     lot.binSchemeId ? ds.getRepository(GainBinRow).find({ where: { schemeId: lot.binSchemeId }, order: { position: 'ASC' } }) : Promise.resolve([]),
   ]);
   const n = hfe.length;
-  const dh = n ? describe(hfe) : null;
-  const dv = n ? describe(vbe) : null;
 
   const outsideBy = { hfeLow: 0, hfeHigh: 0, vbeLow: 0, vbeHigh: 0 };
   let outsideLimits = 0;
@@ -80,17 +80,30 @@ export async function lotSummary(ds: DataSource, lotId: number, rule: HistogramR
   }
 
   const scheme: GainBin[] = binRows.map((b) => ({ code: b.code, label: b.label, hfeMin: b.hfeMin, hfeMax: b.hfeMax, vbeMinMv: b.vbeMinMv, vbeMaxMv: b.vbeMaxMv }));
-  let bins: LotSummary['bins'] = [];
+  const tally = new Map(scheme.map((b) => [b.code, 0]));
   let outsideBins = 0;
-  if (scheme.length && n) {
-    const parts = new Array(n);
-    for (let i = 0; i < n; i++) parts[i] = { hfe: hfe[i], vbeMv: vbe[i] };
-    const counts = binCounts(scheme, parts);
-    bins = counts.counts.map((c, i) => ({ code: c.code, label: scheme[i].label, hfeMin: scheme[i].hfeMin, hfeMax: scheme[i].hfeMax, count: c.count, yieldPct: (100 * c.count) / n }));
-    outsideBins = counts.outside;
-  } else {
-    bins = scheme.map((b) => ({ code: b.code, label: b.label, hfeMin: b.hfeMin, hfeMax: b.hfeMax, count: 0, yieldPct: 0 }));
+  if (scheme.length) {
+    // assignBin (shared/domain/binning) on one reused probe: no 100 000 short-lived objects.
+    const probe = { hfe: 0, vbeMv: 0 };
+    for (let i = 0; i < n; i++) {
+      probe.hfe = hfe[i];
+      probe.vbeMv = vbe[i];
+      const code = assignBin(scheme, probe);
+      if (code === null) outsideBins++;
+      else tally.set(code, (tally.get(code) as number) + 1);
+    }
   }
+  const bins: LotSummary['bins'] = scheme.map((b) => {
+    const count = tally.get(b.code) as number;
+    return { code: b.code, label: b.label, hfeMin: b.hfeMin, hfeMax: b.hfeMax, count, yieldPct: n ? (100 * count) / n : 0 };
+  });
+
+  // The paired passes are done: sort each column once in place; describe, histogram and
+  // Anderson–Darling then only copy the ascending arrays instead of sorting them again.
+  hfe.sort();
+  vbe.sort();
+  const dh = n ? describe(hfe) : null;
+  const dv = n ? describe(vbe) : null;
 
   let hist: LotSummary['histogram'] = { edges: [], counts: [], rule: 'none' };
   if (n) {

@@ -20,7 +20,7 @@ export class Measurement {
   @Column({ name: 'session_id', type: 'integer' })
   sessionId: number;
 
-  @ManyToOne(() => MeasurementSession, { onDelete: 'RESTRICT' })
+  @ManyToOne(() => MeasurementSession, { createForeignKeyConstraints: false })
   @JoinColumn({ name: 'session_id' })
   session?: Relation<MeasurementSession>;
 
@@ -66,7 +66,7 @@ export class Measurement {
   @Column({ name: 'created_by', type: 'integer' })
   createdBy: number;
 
-  @ManyToOne(() => User)
+  @ManyToOne(() => User, { createForeignKeyConstraints: false })
   @JoinColumn({ name: 'created_by' })
   creator?: Relation<User>;
 

@@ -13,10 +13,13 @@ function inBin(bin: GainBin, isLast: boolean, part: PartMeasurement): boolean {
   return (vMin === null || vbe >= vMin) && (vMax === null || vbe <= vMax);
 }
 
-function checkPart(part: PartMeasurement, field: string): void {
-  if (!Number.isFinite(part.hfe)) throw new BinningInputError(`${field}.hfe`, 'hfe must be a finite number');
+const partField = (index: number) => (index < 0 ? 'part' : `parts[${index}]`);
+
+/** `index` is the part's place in a list, or −1 for a single part; the field name is built only on error. */
+function checkPart(part: PartMeasurement, index: number): void {
+  if (!Number.isFinite(part.hfe)) throw new BinningInputError(`${partField(index)}.hfe`, 'hfe must be a finite number');
   if (part.vbeMv != null && !Number.isFinite(part.vbeMv)) {
-    throw new BinningInputError(`${field}.vbeMv`, 'vbeMv must be a finite number or empty');
+    throw new BinningInputError(`${partField(index)}.vbeMv`, 'vbeMv must be a finite number or empty');
   }
 }
 
@@ -28,7 +31,7 @@ function checkPart(part: PartMeasurement, field: string): void {
  * guarantees at most one match. Product rule (Binwright product brief, gain binning).
  */
 export function assignBin(scheme: GainBinScheme, part: PartMeasurement): string | null {
-  checkPart(part, 'part');
+  checkPart(part, -1);
   const last = scheme.length - 1;
   for (let i = 0; i <= last; i++) {
     const bin = scheme[i] as GainBin;
@@ -42,18 +45,18 @@ export function assignBin(scheme: GainBinScheme, part: PartMeasurement): string 
  * all bins, by the rule of assignBin. Counts of parts, no unit.
  */
 export function binCounts(scheme: GainBinScheme, parts: readonly PartMeasurement[]): BinCounts {
-  const counts = scheme.map((bin) => ({ code: bin.code, count: 0 }));
+  // A plain indexed loop: this runs over every part of a 100 000-part lot.
   const last = scheme.length - 1;
+  const tally = new Array<number>(scheme.length).fill(0);
   let outside = 0;
-  parts.forEach((part, p) => {
-    checkPart(part, `parts[${p}]`);
-    for (let i = 0; i <= last; i++) {
-      if (inBin(scheme[i] as GainBin, i === last, part)) {
-        (counts[i] as { count: number }).count++;
-        return;
-      }
-    }
-    outside++;
-  });
+  for (let p = 0; p < parts.length; p++) {
+    const part = parts[p] as PartMeasurement;
+    checkPart(part, p);
+    let i = 0;
+    while (i <= last && !inBin(scheme[i] as GainBin, i === last, part)) i++;
+    if (i <= last) tally[i] = (tally[i] as number) + 1;
+    else outside++;
+  }
+  const counts = scheme.map((bin, i) => ({ code: bin.code, count: tally[i] as number }));
   return { counts, outside, total: parts.length };
 }

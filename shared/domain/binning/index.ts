@@ -10,3 +10,5 @@ export type {
   PartMeasurement,
   BinCounts,
 } from './types.ts';
+export { BIN_PALETTE_SIZE, OUTSIDE_BIN_COLOUR, binColour, contrastRatio, relativeLuminance } from './bin-colours.ts';
+export type { BinColour } from './bin-colours.ts';

@@ -20,12 +20,12 @@ export function validateBinScheme(bins: GainBinScheme, partLimits: PartHfeLimits
     add(-1, 'bins', 'a scheme needs at least one bin');
     return { ok: false, errors };
   }
-  const seen = new Map<string, number>();
+  const seen = new Set<string>();
   bins.forEach((bin, i) => {
     const code = bin.code.trim();
     if (code === '') add(i, 'code', 'code must not be empty');
-    else if (seen.has(code)) add(i, 'code', `code "${code}" is already used by bin ${seen.get(code)}`);
-    else seen.set(code, i);
+    else if (seen.has(code)) add(i, 'code', `code "${code}" is already used by an earlier bin`);
+    else seen.add(code);
     if (bin.label.trim() === '') add(i, 'label', 'label must not be empty');
 
     const hfeOk = Number.isFinite(bin.hfeMin) && Number.isFinite(bin.hfeMax);
@@ -50,11 +50,11 @@ export function validateBinScheme(bins: GainBinScheme, partLimits: PartHfeLimits
     const prev = bins[i - 1];
     if (prev === undefined || !hfeOk || !Number.isFinite(prev.hfeMin) || !Number.isFinite(prev.hfeMax)) return;
     if (bin.hfeMin < prev.hfeMin) {
-      add(i, 'hfeMin', `bins must be listed in ascending hFE order: hfeMin ${bin.hfeMin} is below bin ${i - 1}'s ${prev.hfeMin}`);
+      add(i, 'hfeMin', `bins must be listed in ascending hFE order: hfeMin ${bin.hfeMin} is below the previous bin ("${prev.code}") starting at ${prev.hfeMin}`);
     } else if (bin.hfeMin < prev.hfeMax) {
-      add(i, 'hfeMin', `overlaps bin ${i - 1} ("${prev.code}"), which runs to ${prev.hfeMax}`);
+      add(i, 'hfeMin', `overlaps the previous bin ("${prev.code}"), which runs to ${prev.hfeMax}`);
     } else if (bin.hfeMin > prev.hfeMax && bin.gapBeforeIntended !== true) {
-      add(i, 'hfeMin', `gap from ${prev.hfeMax} to ${bin.hfeMin} after bin ${i - 1} ("${prev.code}") is not marked as intended`);
+      add(i, 'hfeMin', `gap from ${prev.hfeMax} to ${bin.hfeMin} after the previous bin ("${prev.code}") is not marked as intended`);
     }
   });
   return { ok: errors.length === 0, errors };

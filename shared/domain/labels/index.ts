@@ -21,3 +21,5 @@ export {
   parseOwnCode,
 } from './own-codes.ts';
 export type { ClassifyOptions, OwnCode, OwnCodeKind, OwnCodeOptions, PlainCodeKind } from './own-codes.ts';
+export { dataMatrixCodewords, encodeDataMatrix } from './data-matrix.ts';
+export type { DataMatrixSymbol } from './data-matrix.ts';

@@ -1,4 +1,4 @@
-import { StatisticsInputError } from './errors.ts';
+import { StatisticsInputError, isAscending } from './errors.ts';
 
 /** Summary statistics of one sample (e.g. the hFE of a lot's sampled parts). */
 export interface Description {
@@ -41,8 +41,8 @@ export function percentile(sorted: ArrayLike<number>, p: number): number {
 /**
  * n, mean, sample standard deviation (n − 1 divisor), extremes and R-7 percentiles of a sample.
  * Mean and variance come from one pass of Welford's update (B. P. Welford, Technometrics 4 (1962)
- * 419–420), which also copies the values into a Float64Array; one numeric sort then serves every
- * percentile. Units are those of the input.
+ * 419–420), which also copies the values into a Float64Array; one numeric sort (skipped when the
+ * input is already ascending) then serves every percentile. Units are those of the input.
  */
 export function describe(values: ArrayLike<number>): Description {
   const n = values.length;
@@ -58,7 +58,7 @@ export function describe(values: ArrayLike<number>): Description {
     mean += delta / (i + 1);
     m2 += delta * (x - mean);
   }
-  sorted.sort();
+  if (!isAscending(sorted)) sorted.sort();
   const variance = n > 1 ? m2 / (n - 1) : null;
   const min = sorted[0] as number;
   const max = sorted[n - 1] as number;

@@ -24,9 +24,19 @@ export function assertFiniteSample(values: ArrayLike<number>, field: string, min
   }
 }
 
-/** Ascending copy as a Float64Array (typed-array sort is numeric and fast). */
+/** True when every entry is ≥ the one before it (one linear pass). */
+export function isAscending(values: ArrayLike<number>): boolean {
+  for (let i = 1; i < values.length; i++) if ((values[i] as number) < (values[i - 1] as number)) return false;
+  return true;
+}
+
+/**
+ * Ascending copy as a Float64Array (typed-array sort is numeric and fast). An input that is
+ * already ascending is only copied, so a caller that sorts a large sample once can hand the same
+ * sorted array to several statistics without paying for the sort again.
+ */
 export function sortedCopy(values: ArrayLike<number>): Float64Array {
   const sorted = Float64Array.from(values);
-  sorted.sort();
+  if (!isAscending(sorted)) sorted.sort();
   return sorted;
 }

@@ -32,7 +32,7 @@ const KNOWN_REFUSED: { sig: number[]; what: string }[] = [
  * Decides a document's type from its bytes alone — never from its name or the type the browser
  * claims: PDF ("%PDF-"), PNG (8-byte signature), JPEG (FF D8 FF), or CSV: valid UTF-8 text
  * without NUL or other control bytes (tab, CR and LF allowed) that parses as delimited rows
- * (comma, semicolon, tab or bar) with at least two columns.
+ * (comma, semicolon, tab or bar): at least two rows, most of them with the same two or more columns.
  */
 export function detectMediaType(bytes: Uint8Array): Detected {
   if (startsWith(bytes, PDF)) return { ok: true, mediaType: 'application/pdf', label: 'PDF' };
@@ -59,7 +59,8 @@ function isCsv(bytes: Uint8Array): boolean {
   const result = Papa.parse<string[]>(text, { delimitersToGuess: [',', ';', '\t', '|'], skipEmptyLines: true });
   if (result.errors.some((e) => e.type === 'Quotes' || e.code === 'UndetectableDelimiter')) return false;
   const rows = result.data;
-  if (rows.length === 0) return false;
+  // A table: a header and at least one data row.
+  if (rows.length < 2) return false;
   // The most common row width must be at least two columns and cover most rows.
   const widths = new Map<number, number>();
   for (const r of rows) widths.set(r.length, (widths.get(r.length) ?? 0) + 1);

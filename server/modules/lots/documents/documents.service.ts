@@ -83,17 +83,12 @@ export async function addDocument(
       if (again) throw alreadyStored(again);
       const [{ id: docId }] = (await m.query(`SELECT nextval(pg_get_serial_sequence('lot_document', 'id'))::int AS id`)) as { id: number }[];
       const storageKey = `${lotId}/${docId}-${sha256.slice(0, 8)}`;
-      await m.insert(LotDocument, {
-        id: docId,
-        lotId,
-        kind,
-        originalName,
-        mediaType: detected.mediaType,
-        sizeBytes: file.buffer.length,
-        sha256,
-        storageKey,
-        uploadedBy: actor.id,
-      });
+      // Raw insert: TypeORM leaves a generated id out of INSERT, and the file name needs it now.
+      await m.query(
+        `INSERT INTO lot_document (id, lot_id, kind, original_name, media_type, size_bytes, sha256, storage_key, uploaded_by)
+         VALUES ($1, $2, $3, $4, $5, $6, $7, $8, $9)`,
+        [docId, lotId, kind, originalName, detected.mediaType, file.buffer.length, sha256, storageKey, actor.id],
+      );
       await recordAudit(m, {
         actor,
         action: 'lot.document-add',
@@ -101,7 +96,17 @@ export async function addDocument(
         entityId: lotId,
         after: { documentId: docId, kind, originalName, mediaType: detected.mediaType, sizeBytes: file.buffer.length, sha256 },
       });
-      published = await store.publish(tmp, storageKey);
+      try {
+        published = await store.publish(tmp, storageKey);
+      } catch (e) {
+        if ((e as NodeJS.ErrnoException).code !== 'EEXIST') throw e;
+        console.error(`[binwright] document file ${storageKey} already exists; the documents folder does not match the database`);
+        throw new AppError(
+          500,
+          'document-store-conflict',
+          'A stored file already has this document\'s name: the documents folder does not match the database (was a backup restored without its files?). Nothing was stored; tell your administrator.',
+        );
+      }
       return docId;
     });
     const saved = await ds.getRepository(LotDocument).findOneOrFail({ where: { id }, relations: { uploader: true } });

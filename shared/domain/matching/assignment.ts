@@ -1,0 +1,185 @@
+/**
+ * Minimum-cost perfect assignment on a sparse bipartite graph (rows and columns 0…n−1) by
+ * shortest augmenting paths with dual variables: R. Jonker and A. Volgenant, "A shortest
+ * augmenting path algorithm for dense and sparse linear assignment problems", Computing 38
+ * (1987) 325–340 — Dijkstra from one free row over reduced costs c − u − v, stopped at the first
+ * free column, then the duals of the scanned part are moved so the path is tight.
+ */
+
+/** Row r's arcs are arcCol/arcCost[rowStart[r] … rowStart[r+1]−1]. Costs are integers. */
+export interface SparseAssignment {
+  readonly n: number;
+  readonly rowStart: Int32Array;
+  readonly arcCol: Int32Array;
+  readonly arcCost: Float64Array;
+}
+
+export interface AssignmentSolution {
+  /** Column assigned to each row. */
+  readonly colOf: Int32Array;
+  /** Row and column duals: u[r] + v[c] ≤ cost on every arc, equal on assigned arcs. */
+  readonly u: Float64Array;
+  readonly v: Float64Array;
+}
+
+/**
+ * A minimum-cost perfect assignment and an optimal dual (LP duality certifies it). The caller
+ * guarantees a perfect assignment exists. Integer costs give integer duals, exactly.
+ */
+export function solveAssignment(p: SparseAssignment): AssignmentSolution {
+  const { n, rowStart, arcCol, arcCost } = p;
+  const u = new Float64Array(n);
+  const v = new Float64Array(n);
+  const colOf = new Int32Array(n).fill(-1);
+  const rowOf = new Int32Array(n).fill(-1);
+
+  // Start: u = row minimum, v = 0; assign a row to a free column on a tight arc.
+  for (let r = 0; r < n; r++) {
+    let best = Infinity;
+    let bestCol = -1;
+    for (let a = rowStart[r] as number; a < (rowStart[r + 1] as number); a++) {
+      const c = arcCost[a] as number;
+      if (c < best || (c === best && rowOf[arcCol[a] as number] === -1)) {
+        best = c;
+        bestCol = arcCol[a] as number;
+      }
+    }
+    u[r] = best;
+    if (bestCol >= 0 && rowOf[bestCol] === -1) {
+      rowOf[bestCol] = r;
+      colOf[r] = bestCol;
+    }
+  }
+
+  const dist = new Float64Array(n).fill(Infinity);
+  const prevRow = new Int32Array(n).fill(-1);
+  const done = new Uint8Array(n);
+  const rowDist = new Float64Array(n);
+  const touchedCols: number[] = [];
+  const treeRows: number[] = [];
+  const heap = new MinHeap();
+
+  for (let root = 0; root < n; root++) {
+    if (colOf[root] !== -1) continue;
+    touchedCols.length = 0;
+    treeRows.length = 0;
+    heap.clear();
+    treeRows.push(root);
+    rowDist[root] = 0;
+    let r = root;
+    let rd = 0;
+    let sink = -1;
+    let sinkDist = 0;
+    for (;;) {
+      const ur = u[r] as number;
+      for (let a = rowStart[r] as number; a < (rowStart[r + 1] as number); a++) {
+        const c = arcCol[a] as number;
+        if (done[c]) continue;
+        const d = rd + (arcCost[a] as number) - ur - (v[c] as number);
+        if (d < (dist[c] as number)) {
+          if (dist[c] === Infinity) touchedCols.push(c);
+          dist[c] = d;
+          prevRow[c] = r;
+          heap.push(d, c);
+        }
+      }
+      let c = -1;
+      let dc = 0;
+      while (heap.size > 0) {
+        const top = heap.pop();
+        if (done[top.id] || top.key !== dist[top.id]) continue;
+        c = top.id;
+        dc = top.key;
+        break;
+      }
+      if (c < 0) throw new Error('solveAssignment: no perfect assignment exists');
+      done[c] = 1;
+      if (rowOf[c] === -1) {
+        sink = c;
+        sinkDist = dc;
+        break;
+      }
+      r = rowOf[c] as number;
+      rd = dc;
+      rowDist[r] = dc;
+      treeRows.push(r);
+    }
+    // Dual update over the scanned part, then augment along prevRow.
+    for (const c of touchedCols) {
+      if (done[c]) v[c] = (v[c] as number) - (sinkDist - (dist[c] as number));
+    }
+    for (const tr of treeRows) u[tr] = (u[tr] as number) + (sinkDist - (rowDist[tr] as number));
+    let c = sink;
+    for (;;) {
+      const pr = prevRow[c] as number;
+      const next = colOf[pr] as number;
+      colOf[pr] = c;
+      rowOf[c] = pr;
+      if (pr === root) break;
+      c = next;
+    }
+    for (const tc of touchedCols) {
+      dist[tc] = Infinity;
+      done[tc] = 0;
+      prevRow[tc] = -1;
+    }
+  }
+  return { colOf, u, v };
+}
+
+/** Binary min-heap of (key, id) with lazy deletion by the caller. */
+class MinHeap {
+  private keys: number[] = [];
+  private ids: number[] = [];
+
+  get size(): number {
+    return this.keys.length;
+  }
+
+  clear(): void {
+    this.keys.length = 0;
+    this.ids.length = 0;
+  }
+
+  push(key: number, id: number): void {
+    const keys = this.keys;
+    const ids = this.ids;
+    let i = keys.length;
+    keys.push(key);
+    ids.push(id);
+    while (i > 0) {
+      const parent = (i - 1) >> 1;
+      if ((keys[parent] as number) <= key) break;
+      keys[i] = keys[parent] as number;
+      ids[i] = ids[parent] as number;
+      i = parent;
+    }
+    keys[i] = key;
+    ids[i] = id;
+  }
+
+  pop(): { key: number; id: number } {
+    const keys = this.keys;
+    const ids = this.ids;
+    const top = { key: keys[0] as number, id: ids[0] as number };
+    const lastKey = keys.pop() as number;
+    const lastId = ids.pop() as number;
+    const size = keys.length;
+    if (size > 0) {
+      let i = 0;
+      for (;;) {
+        const l = 2 * i + 1;
+        if (l >= size) break;
+        const r = l + 1;
+        const child = r < size && (keys[r] as number) < (keys[l] as number) ? r : l;
+        if ((keys[child] as number) >= lastKey) break;
+        keys[i] = keys[child] as number;
+        ids[i] = ids[child] as number;
+        i = child;
+      }
+      keys[i] = lastKey;
+      ids[i] = lastId;
+    }
+    return top;
+  }
+}

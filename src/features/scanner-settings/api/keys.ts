@@ -1,0 +1,3 @@
+export const scannerSettingsKeys = {
+  all: ['scanner-settings'] as const,
+};
