@@ -5,6 +5,7 @@
  */
 import 'reflect-metadata';
 import { spawn } from 'node:child_process';
+import fs from 'node:fs';
 import path from 'node:path';
 import { build } from 'vite';
 import { createDataSource } from '../server/data-source.ts';
@@ -30,6 +31,8 @@ async function main(): Promise<number> {
     process.exit(130);
   });
   try {
+    // Stored files belong to the throwaway database: start both empty.
+    fs.rmSync(path.join(root, 'files'), { recursive: true, force: true });
     Object.assign(process.env, clusterEnv(cluster), {
       BINWRIGHT_DATA_DIR: path.join(root, 'files'),
       BINWRIGHT_SMTP_PORT: process.env.BINWRIGHT_TEST_SMTP_PORT ?? '2535',

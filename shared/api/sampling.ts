@@ -84,6 +84,12 @@ export interface LotPlanResponse {
   plan: LotPlan | null;
   /** Why no plan could be given (e.g. an AQL the tables do not carry). */
   planError: string | null;
+  /**
+   * The lot's disposition is signed: `plan` is the plan it was judged by and `planSeverity` the
+   * severity then, while `switching` shows where the supplier stands now.
+   */
+  planAsSigned: boolean;
+  planSeverity: SwitchingSeverityName;
   /** Current (not superseded) measurements of the lot. */
   measured: number;
   /** Parts still to measure for the plan's sample (0 when done). */

@@ -12,6 +12,9 @@ import { CatalogSupplierDetailPage } from './routes/catalog/supplier-detail.tsx'
 import { CatalogSuppliersPage } from './routes/catalog/suppliers.tsx';
 import { DockPage } from './routes/dock/dock.tsx';
 import { LotPage } from './routes/dock/lot.tsx';
+import { BinsPage } from './routes/bins/bins-page.tsx';
+import { ContainerCodePage } from './routes/bins/container-code-page.tsx';
+import { ContainerPage } from './routes/bins/container-page.tsx';
 import { HomePage } from './routes/home.tsx';
 import { NotFoundPage } from './routes/not-found.tsx';
 import { SignInPage } from './routes/sign-in.tsx';
@@ -27,7 +30,9 @@ export const routes: RouteObject[] = [
       { path: 'dock/lots/:id', element: <LotPage /> },
       { path: 'bench', element: <BenchQueuePage /> },
       { path: 'bench/lots/:id', element: <BenchLotPage /> },
-      { path: 'bins', element: <AreaPage area="bins" /> },
+      { path: 'bins', element: <BinsPage /> },
+      { path: 'bins/containers/code/:code', element: <ContainerCodePage /> },
+      { path: 'bins/containers/:id', element: <ContainerPage /> },
       { path: 'pairing', element: <AreaPage area="pairing" /> },
       { path: 'suppliers', element: <AreaPage area="suppliers" /> },
       { path: 'catalog', element: <CatalogPartTypesPage /> },

@@ -62,7 +62,7 @@ describe('Dock in Chromium', () => {
     await page.getByRole('navigation', { name: 'Areas' }).getByRole('link', { name: 'Dock' }).click();
     const scan = page.getByLabel('Scan a supplier label, or type a lot code or PO number');
     await scan.waitFor();
-    expect(await page.evaluate(() => document.activeElement?.id)).toBe('scan-field');
+    expect(await scan.evaluate((el) => el.ownerDocument.activeElement === el)).toBe(true);
 
     // The scanner types the whole message at full speed, then Enter.
     await page.keyboard.type(LABEL);
@@ -73,8 +73,9 @@ describe('Dock in Chromium', () => {
     await page.getByRole('list', { name: 'Unmapped data identifiers' }).getByText(`PKG-${u}`).waitFor();
 
     const form = page.getByRole('form', { name: 'Receive lot' });
-    await expect.poll(() => form.getByLabel('Supplier', { exact: true }).evaluate((el) => (el as HTMLSelectElement).selectedOptions[0]?.textContent ?? '')).toContain(SUPPLIER);
-    expect(await form.getByLabel('Part type').evaluate((el) => (el as HTMLSelectElement).selectedOptions[0]?.textContent)).toContain(PART);
+    const selected = (label: string) => form.getByLabel(label, { exact: true }).locator('option:checked').textContent();
+    await expect.poll(() => selected('Supplier')).toContain(SUPPLIER);
+    expect(await selected('Part type')).toContain(PART);
     expect(await form.getByLabel('Quantity (pcs)').inputValue()).toBe('500');
     expect(await form.getByLabel('Purchase order').inputValue()).toBe(`PO-${u}`);
     expect(await form.getByLabel('Supplier lot').inputValue()).toBe(`Z${u}`);

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import type { LotScreening, PlaceScreenedResponse } from '../../shared/api/bins.ts';
 import { parseOwnCode } from '../../shared/domain/labels/index.ts';
-import { placeScreenedParts } from '../../server/modules/bins/screening.service.ts';
+import { placeScreenedPart, placeScreenedParts } from '../../server/modules/bins/screening.service.ts';
 import { agentFor, useTestApp, type Agent } from './helpers.ts';
 import { addReadings, correctReading, makeScreenLot, type ScreenLot } from './bins-fixtures.ts';
 
@@ -172,6 +172,42 @@ describe('POST /api/lots/:id/screening/place', () => {
     const s = await screening(agent, f.lotId);
     expect(s.bins.map((b) => b.count)).toEqual([1, 1]);
     expect(s.placed).toBe(2);
+  });
+});
+
+describe('GET /api/lots/:id/screening/recent', () => {
+  it('lists the latest placements newest first, saying when a part opened or filled a container', async () => {
+    const f = await makeScreenLot(ctx.ds, { setup: { ...STRIP4, capacity: 2 } });
+    const agent = await inspectorOf(f);
+    await addReadings(ctx.ds, f, [150, 160, 170]);
+    await place(agent, f.lotId);
+    const res = await agent.get(`/api/lots/${f.lotId}/screening/recent?limit=3`).expect(200);
+    expect(res.body.screeningOpen).toBe(true);
+    expect(res.body.items.map((p: { lotPosition: number; position: number; openedContainer: boolean; filledContainer: boolean }) => [p.lotPosition, p.position, p.openedContainer, p.filledContainer])).toEqual([
+      [3, 1, true, false],
+      [2, 2, false, true],
+      [1, 1, true, false],
+    ]);
+    expect(res.body.items[0].bin).toMatchObject({ code: 'A', label: 'Gain group A', index: 0 });
+    await agent.get(`/api/lots/${f.lotId}/screening/recent?limit=0`).expect(400);
+  });
+});
+
+describe('placeScreenedPart (the hook for the bench, in the transaction that records the reading)', () => {
+  it('places one part and rolls back with the caller', async () => {
+    const f = await makeScreenLot(ctx.ds, { setup: STRIP4 });
+    const [id] = await addReadings(ctx.ds, f, [250]);
+    await expect(
+      ctx.ds.transaction(async (m) => {
+        const p = await placeScreenedPart(m, f.inspector, f.lotId, { id: id as string, position: 1, hfe25: 250, vbeMv25: 650, supersedesId: null });
+        expect(p).toMatchObject({ bin: { code: 'B' }, position: 1, openedContainer: true });
+        throw new Error('the reading failed after all');
+      }),
+    ).rejects.toThrow('the reading failed after all');
+    const [{ n }] = await ctx.ds.query(`SELECT count(*)::int AS n FROM container WHERE lot_id = $1`, [f.lotId]);
+    expect(n).toBe(0);
+    const p = await ctx.ds.transaction((m) => placeScreenedPart(m, f.inspector, f.lotId, { id: id as string, position: 1, hfe25: 250, vbeMv25: 650, supersedesId: null }));
+    expect(p).toMatchObject({ bin: { code: 'B' }, position: 1, alreadyPlaced: false });
   });
 });
 

@@ -190,9 +190,9 @@ export function renderInspectionReport(data: ReportData): Promise<Buffer> {
     const y0 = doc.y;
     ['Bin', 'hFE range', 'Parts', 'Yield'].forEach((h, i) => doc.font('semibold').fontSize(9).fillColor(FAINT).text(h, left + i * bw, y0, { width: bw - 6, align: i < 2 ? 'left' : 'right' }));
     doc.y = y0 + 13;
-    for (const b of [...s.bins, { code: 'outside', label: 'outside all bins', hfeMin: NaN, hfeMax: NaN, count: s.outsideBins, yieldPct: s.n ? (100 * s.outsideBins) / s.n : 0 }]) {
+    for (const b of [...s.bins, { code: '', label: 'outside all bins', hfeMin: NaN, hfeMax: NaN, count: s.outsideBins, yieldPct: s.n ? (100 * s.outsideBins) / s.n : 0 }]) {
       const y = doc.y;
-      const cells = [`${b.code} ${b.label}`, Number.isFinite(b.hfeMin) ? `${b.hfeMin} – ${b.hfeMax}` : '', b.count.toLocaleString('en'), `${b.yieldPct.toFixed(1)} %`];
+      const cells = [`${b.code} ${b.label}`.trim(), Number.isFinite(b.hfeMin) ? `${b.hfeMin} – ${b.hfeMax}` : '', b.count.toLocaleString('en'), `${b.yieldPct.toFixed(1)} %`];
       cells.forEach((c, i) => doc.font('regular').fontSize(9.5).fillColor(INK).text(pdfText(c), left + i * bw, y, { width: bw - 6, align: i < 2 ? 'left' : 'right' }));
       doc.y = y + 13;
     }

@@ -48,16 +48,27 @@ export async function countCurrent(m: EntityManager, lotId: number): Promise<num
   return row.n;
 }
 
+/** The plan and severity stored with a signed disposition, or null while the lot is not signed. */
+async function signedPlan(m: EntityManager, lotId: number): Promise<{ plan: LotPlan | null; severity: SwitchingView['severity'] } | null> {
+  const [row] = (await m.query(`SELECT recommendation FROM disposition WHERE lot_id = $1 AND signed_at IS NOT NULL`, [lotId])) as {
+    recommendation: { plan: LotPlan | null; severity: SwitchingView['severity'] };
+  }[];
+  return row ? { plan: row.recommendation.plan, severity: row.recommendation.severity } : null;
+}
+
 export async function getLotPlan(ds: DataSource, lotId: number): Promise<LotPlanResponse> {
   const { lot, partType, supplier } = await loadLotContext(ds.manager, lotId);
-  const [resolved, measured] = await Promise.all([resolveLotPlan(ds.manager, lot, partType), countCurrent(ds.manager, lotId)]);
+  const [resolved, measured, signed] = await Promise.all([resolveLotPlan(ds.manager, lot, partType), countCurrent(ds.manager, lotId), signedPlan(ds.manager, lotId)]);
+  const plan = signed ? signed.plan : resolved.plan;
   return {
     lot: toBenchLot(lot, supplier),
     partType: toBenchPartType(partType),
     switching: resolved.switching,
-    plan: resolved.plan,
-    planError: resolved.planError,
+    plan,
+    planError: signed && !signed.plan ? 'no sampling plan applied when the disposition was signed' : resolved.planError,
+    planAsSigned: Boolean(signed),
+    planSeverity: signed ? signed.severity : resolved.switching.severity,
     measured,
-    remaining: resolved.plan ? Math.max(0, resolved.plan.sampleSize - measured) : 0,
+    remaining: plan ? Math.max(0, plan.sampleSize - measured) : 0,
   };
 }

@@ -38,12 +38,15 @@ export interface BlossomOptions {
   readonly maxCardinality?: boolean;
   readonly start?: BlossomStart;
   /**
-   * Grow one alternating tree per stage (from one free vertex) instead of a forest from all of
-   * them, and augment as soon as the tree reaches any free vertex by a tight edge. Only for
-   * graphs that have a perfect matching, with maxCardinality: then an augmenting path from the
-   * root always exists (the symmetric difference with a perfect matching contains one), no sign
-   * or equality condition binds the free vertices' duals, and each stage costs the size of one
-   * tree rather than of the whole forest.
+   * Grow one alternating tree per stage, from one free vertex whose dual is still positive,
+   * instead of a forest from all free vertices; not with maxCardinality. A stage ends when the
+   * tree reaches any free vertex by a tight edge (augment), or when the dual of one of its outer
+   * vertices x reaches 0 (the even path from the root to x is flipped: the root is matched and x
+   * left free, with dual 0 as complementary slackness asks — x is the root itself when no partner
+   * is worth having). Every step keeps the duals feasible and the matched edges tight, and the
+   * stages end when every free vertex has dual 0, which is the optimality condition; so the
+   * result is the same maximum weight as the forest version, but each stage costs the size of one
+   * tree, and any feasible start (duals ≥ 0, matched edges tight, no blossoms) is accepted.
    */
   readonly singleTree?: boolean;
 }
@@ -68,6 +71,7 @@ export function solveMaxWeightMatching(graph: BlossomGraph, options: BlossomOpti
   const maxCardinality = options.maxCardinality === true;
   const singleTree = options.singleTree === true;
   const start = options.start;
+  if (singleTree && maxCardinality) throw new Error('solveMaxWeightMatching: singleTree does not combine with maxCardinality');
   const n = graph.nVertex;
   const ei = graph.edgeI;
   const ej = graph.edgeJ;
@@ -439,6 +443,25 @@ export function solveMaxWeightMatching(graph: BlossomGraph, options: BlossomOpti
     }
   };
 
+  /** Flips the even tree path from the root to outer vertex x: the root is matched, x left free. */
+  const releaseVertex = (x: number): void => {
+    let s = x;
+    let p = -1;
+    for (;;) {
+      const bs = inBlossom[s] as number;
+      if (bs >= n) augmentBlossom(bs, s);
+      mate[s] = p;
+      if (labelEnd[bs] === -1) break;
+      const t = endpoint[labelEnd[bs] as number] as number;
+      const bt = inBlossom[t] as number;
+      s = endpoint[labelEnd[bt] as number] as number;
+      const j = endpoint[(labelEnd[bt] as number) ^ 1] as number;
+      if (bt >= n) augmentBlossom(bt, j);
+      mate[j] = labelEnd[bt] as number;
+      p = (labelEnd[bt] as number) ^ 1;
+    }
+  };
+
   const minVertexDual = (): number => {
     let d = Infinity;
     for (let v = 0; v < n; v++) if ((dualVar[v] as number) < d) d = dualVar[v] as number;
@@ -463,13 +486,22 @@ export function solveMaxWeightMatching(graph: BlossomGraph, options: BlossomOpti
     queue.length = 0;
 
     const stillFree: number[] = [];
+    let rooted = false;
     for (const v of free) {
       if (mate[v] !== -1) continue;
-      stillFree.push(v);
-      if (singleTree && stillFree.length > 1) continue;
+      if (singleTree) {
+        // A free vertex with dual 0 already satisfies complementary slackness and stays as it is.
+        if (dualVar[v] === 0) continue;
+        stillFree.push(v);
+        if (rooted) continue;
+        rooted = true;
+      } else {
+        stillFree.push(v);
+      }
       if (label[inBlossom[v] as number] === 0) assignLabel(v, 1, -1);
     }
     free = stillFree;
+    if (singleTree && !rooted) break;
 
     let augmented = false;
     for (;;) {
@@ -527,7 +559,24 @@ export function solveMaxWeightMatching(graph: BlossomGraph, options: BlossomOpti
       let delta = 0;
       let deltaEdge = -1;
       let deltaBlossom = -1;
-      if (!maxCardinality) {
+      let zeroVertex = -1;
+      if (singleTree) {
+        // Smallest dual among the tree's outer (S) vertices.
+        deltaType = 1;
+        delta = Infinity;
+        const lv: number[] = [];
+        for (const x of labelled) {
+          if (blossomParent[x] !== -1 || label[x] !== 1) continue;
+          if (x >= n && (blossomBase[x] as number) < 0) continue;
+          lv.length = 0;
+          for (const v of leaves(x, lv)) {
+            if ((dualVar[v] as number) < delta) {
+              delta = dualVar[v] as number;
+              zeroVertex = v;
+            }
+          }
+        }
+      } else if (!maxCardinality) {
         deltaType = 1;
         delta = minVertexDual();
       }
@@ -582,7 +631,15 @@ export function solveMaxWeightMatching(graph: BlossomGraph, options: BlossomOpti
         if (x >= n) dualVar[x] = (dualVar[x] as number) - sign * delta;
       }
 
-      if (deltaType === 1) break;
+      if (deltaType === 1) {
+        if (singleTree && zeroVertex >= 0) {
+          const wasMatched = mate[zeroVertex] !== -1;
+          if (wasMatched || inBlossom[zeroVertex] !== zeroVertex) releaseVertex(zeroVertex);
+          if (wasMatched) free.push(zeroVertex);
+          augmented = true;
+        }
+        break;
+      }
       if (deltaType === 2) {
         allow(deltaEdge);
         let i = ei[deltaEdge] as number;

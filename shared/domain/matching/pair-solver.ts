@@ -116,14 +116,14 @@ export function solveMaxPairs(it: PairItems): PairSolution {
     const added: number[] = [];
     for (let a = 0; a < n; a++) {
       const limit = (bound[a] as number) / 2;
-      if ((pi[a] as number) <= limit && (pi[a + n] as number) <= limit) continue;
+      if ((pi[a] as number) <= limit) continue;
       if (inGraph === null) inGraph = new Set(keys);
       const set = inGraph;
       forEachNeighbour(it, a, (b) => {
         const key = keyOf(a, b);
         if (set.has(key)) return;
         const q = costOf(a, b);
-        if (q < (pi[a] as number) + (pi[b] as number) || q < (pi[a + n] as number) + (pi[b + n] as number)) {
+        if (q < (pi[a] as number) + (pi[b] as number)) {
           set.add(key);
           added.push(key);
         }
@@ -173,12 +173,11 @@ function solveSparse(n: number, edgeA: Int32Array, edgeB: Int32Array, cost: Floa
     arcCol[fill[b] as number] = a;
     arcCost[fill[b]++ as number] = cost[e] as number;
   }
+  const T0 = performance.now();
   const { colOf, u, v } = solveAssignment({ n, rowStart, arcCol, arcCost });
-  const pi = new Float64Array(2 * n);
-  for (let a = 0; a < n; a++) {
-    pi[a] = ((u[a] as number) + (v[a] as number)) / 2;
-    pi[a + n] = pi[a] as number;
-  }
+  console.log('assign ms', (performance.now() - T0).toFixed(1), 'm', m);
+  const pi = new Float64Array(n);
+  for (let a = 0; a < n; a++) pi[a] = ((u[a] as number) + (v[a] as number)) / 2;
 
   // Cycles of the assignment: fixed points stay unmatched, 2-cycles are pairs, longer cycles are
   // matched alternately (an odd one leaves one item free).
@@ -199,60 +198,33 @@ function solveSparse(n: number, edgeA: Int32Array, edgeB: Int32Array, cost: Floa
     }
     if (cycle.length % 2 === 1 && cycle.length > 1) oddFree.push(cycle[cycle.length - 1] as number);
   }
+  console.log('oddFree', oddFree.length);
   if (oddFree.length === 0) return { mate, pi };
 
-  // Odd cycles: finish on the doubled graph with the blossom algorithm, started from this matching
-  // and these duals (max-weight form: w = 2P − q, w(v–v′) = 0, y = 2P − 2·pi).
-  const total = 2 * m + n;
-  const edgeI = new Int32Array(total);
-  const edgeJ = new Int32Array(total);
-  const weight = new Float64Array(total);
+  // Odd cycles: finish with the blossom algorithm, one tree per free item, started from this
+  // matching and these duals (max-weight form: w = 2P − q, y = 2P − 2·pi ≥ 0).
+  const edgeI = new Int32Array(edgeA);
+  const edgeJ = new Int32Array(edgeB);
+  const weight = new Float64Array(m);
   const edgeOf = new Map<number, number>();
   for (let e = 0; e < m; e++) {
-    const a = edgeA[e] as number;
-    const b = edgeB[e] as number;
-    const w = self - (cost[e] as number);
-    edgeI[e] = a;
-    edgeJ[e] = b;
-    weight[e] = w;
-    edgeI[m + e] = a + n;
-    edgeJ[m + e] = b + n;
-    weight[m + e] = w;
-    edgeOf.set(a * n + b, e);
+    weight[e] = self - (cost[e] as number);
+    edgeOf.set((edgeA[e] as number) * n + (edgeB[e] as number), e);
   }
-  for (let a = 0; a < n; a++) {
-    edgeI[2 * m + a] = a;
-    edgeJ[2 * m + a] = a + n;
-    weight[2 * m + a] = 0;
-  }
-  const N = 2 * n;
-  const mateEdge = new Int32Array(N).fill(-1);
-  const dual = new Float64Array(N);
+  const mateEdge = new Int32Array(n).fill(-1);
+  const dual = new Float64Array(n);
   for (let a = 0; a < n; a++) {
     dual[a] = self - 2 * (pi[a] as number);
-    dual[a + n] = dual[a] as number;
     const b = mate[a] as number;
     if (b > a) {
       const e = edgeOf.get(a * n + b) as number;
       mateEdge[a] = e;
       mateEdge[b] = e;
-      mateEdge[a + n] = m + e;
-      mateEdge[b + n] = m + e;
-    } else if (b === -1 && colOf[a] === a) {
-      mateEdge[a] = 2 * m + a;
-      mateEdge[a + n] = 2 * m + a;
     }
   }
-  const res = solveMaxWeightMatching({ nVertex: N, edgeI, edgeJ, weight }, {
-    maxCardinality: true,
-    singleTree: true,
-    start: { mateEdge, dual },
-  });
-  const mateG = new Int32Array(n).fill(-1);
-  for (let a = 0; a < n; a++) {
-    const b = res.mate[a] as number;
-    mateG[a] = b < n ? b : -1;
-  }
-  for (let v2 = 0; v2 < N; v2++) pi[v2] = (self - (res.dual[v2] as number)) / 2;
-  return { mate: mateG, pi };
+  const T1 = performance.now();
+  const res = solveMaxWeightMatching({ nVertex: n, edgeI, edgeJ, weight }, { singleTree: true, start: { mateEdge, dual } });
+  console.log('blossom ms', (performance.now() - T1).toFixed(1), res.augmentations);
+  for (let a = 0; a < n; a++) pi[a] = (self - (res.dual[a] as number)) / 2;
+  return { mate: res.mate, pi };
 }

@@ -1,5 +1,5 @@
 import { BinaryBitmap, DataMatrixReader, DecodeHintType, HybridBinarizer, RGBLuminanceSource } from '@zxing/library';
-import bwipjs from 'bwip-js';
+import bwipjs from 'bwip-js/generic';
 import { describe, expect, it } from 'vitest';
 import { dataMatrixCodewords, encodeDataMatrix, formatLabel, LabelFormatError } from '../../../shared/domain/labels/index.ts';
 

@@ -71,73 +71,73 @@ export function ContainersTable({ canEdit, containerHref, partTypes, lotId, init
     });
 
   const columns: ColumnDef<ContainerRow, unknown>[] = [
-      {
-        id: 'select',
-        header: () => <input type="checkbox" aria-label="Select all containers on this page" checked={allOnPage} onChange={togglePage} />,
-        enableSorting: false,
-        cell: ({ row }) => <input type="checkbox" aria-label={`Select ${row.original.code}`} checked={selected.has(row.original.id)} onChange={() => toggle(row.original)} />,
-      },
-      {
-        id: 'code',
-        header: 'Container',
-        enableSorting: true,
-        cell: ({ row }) => (
-          <Link to={containerHref(row.original.id)} className="font-mono font-semibold text-ink underline-offset-2 hover:underline">
-            {row.original.code}
-          </Link>
-        ),
-      },
-      { id: 'bin', header: 'Bin', enableSorting: true, cell: ({ row }) => <BinChip bin={row.original.bin} /> },
-      {
-        id: 'part',
-        header: 'Part · lot',
-        enableSorting: false,
-        cell: ({ row }) => (
-          <span className="text-sm">
-            <span className="font-semibold">{row.original.partNumber}</span> <span className="font-mono text-ink-soft">{row.original.lotCode}</span>
-          </span>
-        ),
-      },
-      {
-        id: 'quantity',
-        header: 'Qty',
-        enableSorting: true,
-        cell: ({ row }) => (
-          <span className="num">
-            {row.original.quantity} / {row.original.capacity}
-          </span>
-        ),
-      },
-      { id: 'location', header: 'Location', enableSorting: true, cell: ({ row }) => row.original.location },
-      { id: 'status', header: 'Status', enableSorting: true, cell: ({ row }) => <ContainerStatusTag status={row.original.status} /> },
-      {
-        id: 'kind',
-        header: 'Kind',
-        enableSorting: false,
-        cell: ({ row }) => `${CONTAINER_KIND_LABELS[row.original.kind]}${row.original.hasPositions ? ', numbered' : ''}`,
-      },
-      { id: 'createdAt', header: 'Opened', enableSorting: true, cell: ({ row }) => <span className="num">{formatDate(row.original.createdAt)}</span> },
-      {
-        id: 'actions',
-        header: '',
-        enableSorting: false,
-        cell: ({ row }) =>
-          canEdit ? (
-            <span className="flex gap-1">
-              <Button variant="quiet" onClick={() => setActing({ row: row.original, action: 'move' })} aria-label={`Move ${row.original.code}`}>
-                Move
+    {
+      id: 'select',
+      header: () => <input type="checkbox" aria-label="Select all containers on this page" checked={allOnPage} onChange={togglePage} />,
+      enableSorting: false,
+      cell: ({ row }) => <input type="checkbox" aria-label={`Select ${row.original.code}`} checked={selected.has(row.original.id)} onChange={() => toggle(row.original)} />,
+    },
+    {
+      id: 'code',
+      header: 'Container',
+      enableSorting: true,
+      cell: ({ row }) => (
+        <Link to={containerHref(row.original.id)} className="font-mono font-semibold text-ink underline-offset-2 hover:underline">
+          {row.original.code}
+        </Link>
+      ),
+    },
+    { id: 'bin', header: 'Bin', enableSorting: true, cell: ({ row }) => <BinChip bin={row.original.bin} /> },
+    {
+      id: 'part',
+      header: 'Part · lot',
+      enableSorting: false,
+      cell: ({ row }) => (
+        <span className="text-sm">
+          <span className="font-semibold">{row.original.partNumber}</span> <span className="font-mono text-ink-soft">{row.original.lotCode}</span>
+        </span>
+      ),
+    },
+    {
+      id: 'quantity',
+      header: 'Qty',
+      enableSorting: true,
+      cell: ({ row }) => (
+        <span className="num">
+          {row.original.quantity} / {row.original.capacity}
+        </span>
+      ),
+    },
+    { id: 'location', header: 'Location', enableSorting: true, cell: ({ row }) => row.original.location },
+    { id: 'status', header: 'Status', enableSorting: true, cell: ({ row }) => <ContainerStatusTag status={row.original.status} /> },
+    {
+      id: 'kind',
+      header: 'Kind',
+      enableSorting: false,
+      cell: ({ row }) => `${CONTAINER_KIND_LABELS[row.original.kind]}${row.original.hasPositions ? ', numbered' : ''}`,
+    },
+    { id: 'createdAt', header: 'Opened', enableSorting: true, cell: ({ row }) => <span className="num">{formatDate(row.original.createdAt)}</span> },
+    {
+      id: 'actions',
+      header: '',
+      enableSorting: false,
+      cell: ({ row }) =>
+        canEdit ? (
+          <span className="flex gap-1">
+            <Button variant="quiet" onClick={() => setActing({ row: row.original, action: 'move' })} aria-label={`Move ${row.original.code}`}>
+              Move
+            </Button>
+            {!row.original.hasPositions && (
+              <Button variant="quiet" onClick={() => setActing({ row: row.original, action: 'adjust' })} aria-label={`Adjust ${row.original.code}`}>
+                Adjust
               </Button>
-              {!row.original.hasPositions && (
-                <Button variant="quiet" onClick={() => setActing({ row: row.original, action: 'adjust' })} aria-label={`Adjust ${row.original.code}`}>
-                  Adjust
-                </Button>
-              )}
-              <Button variant="quiet" disabled={row.original.quantity === 0} onClick={() => setActing({ row: row.original, action: 'scrap' })} aria-label={`Scrap from ${row.original.code}`}>
-                Scrap
-              </Button>
-            </span>
-          ) : null,
-      },
+            )}
+            <Button variant="quiet" disabled={row.original.quantity === 0} onClick={() => setActing({ row: row.original, action: 'scrap' })} aria-label={`Scrap from ${row.original.code}`}>
+              Scrap
+            </Button>
+          </span>
+        ) : null,
+    },
   ];
 
   return (

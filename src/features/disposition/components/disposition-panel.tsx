@@ -132,7 +132,7 @@ export function DispositionPanel({ lotId, role, onChanged }: { lotId: number; ro
         {d.signature ? (
           <div className={`rounded-md border-l-4 px-3 py-2 ${d.signature.decision === 'accept' ? 'border-pass bg-pass-light' : d.signature.decision === 'reject' ? 'border-fail bg-fail-light' : 'border-info bg-info-light'}`} data-testid="signature">
             <p className="text-lg font-bold text-ink">
-              🔒 <DecisionText decision={d.signature.decision} mrbAction={d.signature.mrbAction} />
+              Signed: <DecisionText decision={d.signature.decision} mrbAction={d.signature.mrbAction} />
             </p>
             <p className="text-sm text-ink-soft">
               Signed by {d.signature.by.name}, {when(d.signature.by.at)} — “{d.signature.reason}”. The disposition is locked.

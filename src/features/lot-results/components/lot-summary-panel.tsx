@@ -66,7 +66,7 @@ export function LotSummaryPanel({ lotId }: { lotId: number }) {
       ) : (
         <div className="flex flex-col gap-4" data-testid="lot-summary">
           <div className="flex flex-wrap items-center gap-3 text-sm">
-            <span className="num text-base font-semibold text-ink">{q.data.n.toLocaleString()} parts</span>
+            <span className="num text-base font-semibold text-ink">{q.data.n.toLocaleString()} {q.data.n === 1 ? 'part' : 'parts'}</span>
             {q.data.outsideLimits > 0 ? (
               <StatusTag tone="fail">
                 {q.data.outsideLimits} outside limits (hFE low {q.data.outsideBy.hfeLow}, high {q.data.outsideBy.hfeHigh}; Vbe low {q.data.outsideBy.vbeLow}, high {q.data.outsideBy.vbeHigh})

@@ -75,11 +75,13 @@ export function EntryGrid({
   const [entries, setEntries] = useState<MeasurementRow[]>([]);
   const [correcting, setCorrecting] = useState<MeasurementRow | null>(null);
   const [hint, setHint] = useState<string | null>(null);
+  const [saving, setSaving] = useState<{ key: number; position: number; hfe: string; vbe: string }[]>([]);
+  const [serverError, setServerError] = useState<ApiError | null>(null);
+  const [resumeAt, setResumeAt] = useState<string | null>(null);
+  const seq = useRef(0);
   const refs = useRef<Partial<Record<Field, HTMLInputElement | null>>>({});
   const record = useRecordMeasurement(lotId);
   const correct = useCorrectMeasurement(lotId);
-  const pending = record.isPending || correct.isPending;
-  const serverError = (record.error ?? correct.error) instanceof ApiError ? ((record.error ?? correct.error) as ApiError) : null;
 
   useEffect(() => {
     refs.current.hfe?.focus();
@@ -92,50 +94,66 @@ export function EntryGrid({
     setLine((l) => ({ ...l, [f]: e.target.value }));
   };
 
-  const afterSave = (row: MeasurementRow) => {
-    setEntries((list) => [...list.filter((r) => r.position !== row.position), row].slice(-12));
-    const next = correcting ? Math.max(Number(line.position) || 0, ...entries.map((r) => r.position)) + 1 : row.position + 1;
-    setCorrecting(null);
-    setLine({ position: String(Math.min(next, quantity)), ...EMPTY });
-    record.reset();
-    correct.reset();
-    onRecorded();
-    refs.current.hfe?.focus();
-  };
-
+  /**
+   * Records without waiting: the line clears at once for the next part while the reading is
+   * saved, so a fast typist never loses keystrokes. A reading the server refuses comes back into
+   * the line with the reason.
+   */
   const submit = () => {
     if (!a.reading) {
       setHint(line.hfe.trim() === '' ? 'Type the hFE reading.' : line.vbe.trim() === '' ? 'Type the Vbe reading.' : 'Fix the marked value first.');
       refs.current[line.hfe.trim() === '' || a.errors.some((e) => e.field === 'hfe') ? 'hfe' : 'vbe']?.focus();
       return;
     }
+    if (correcting && line.reason.trim().length < 3) {
+      setHint('Say why the reading is corrected.');
+      refs.current.reason?.focus();
+      return;
+    }
+    const typed = line;
+    const target = correcting;
+    const position = Number(typed.position);
     const body = {
       sessionId: session.id,
       hfe: a.reading.hfe,
-      vbe: num(line.vbe),
+      vbe: num(typed.vbe),
       vbeUnit,
-      vceSat: line.vceSat.trim() ? num(line.vceSat) : null,
+      vceSat: typed.vceSat.trim() ? num(typed.vceSat) : null,
       vceSatUnit: 'mV' as const,
-      leakage: line.leakage.trim() ? num(line.leakage) : null,
+      leakage: typed.leakage.trim() ? num(typed.leakage) : null,
       leakageUnit: 'nA' as const,
     };
-    if (correcting) {
-      if (line.reason.trim().length < 3) {
-        setHint('Say why the reading is corrected.');
-        refs.current.reason?.focus();
-        return;
-      }
-      correct.mutate({ measurementId: correcting.id, body: { ...body, reason: line.reason.trim() } }, { onSuccess: afterSave });
-    } else {
-      record.mutate({ ...body, position: Number(line.position) }, { onSuccess: afterSave });
-    }
+    const key = ++seq.current;
+    setSaving((list) => [...list, { key, position, hfe: typed.hfe, vbe: typed.vbe }]);
+    setServerError(null);
+    setHint(null);
+    setCorrecting(null);
+    setLine({ position: target ? (resumeAt ?? String(nextPosition)) : String(Math.min(position + 1, quantity)), ...EMPTY });
+    setResumeAt(null);
+    refs.current.hfe?.focus();
+    const request = target
+      ? correct.mutateAsync({ measurementId: target.id, body: { ...body, reason: typed.reason.trim() } })
+      : record.mutateAsync({ ...body, position });
+    request
+      .then((row) => {
+        setEntries((list) => [...list.filter((r) => r.position !== row.position), row].slice(-12));
+        onRecorded();
+      })
+      .catch((e: unknown) => {
+        setServerError(e instanceof ApiError ? e : new ApiError({ type: 'about:blank', title: 'Error', status: 0, detail: String(e) }));
+        if (target) setCorrecting(target);
+        setLine(typed);
+        refs.current.hfe?.focus();
+      })
+      .finally(() => setSaving((list) => list.filter((x) => x.key !== key)));
   };
 
   const onKeyDown = (f: Field, e: KeyboardEvent<HTMLInputElement>) => {
     if (e.key === 'Escape') {
       e.preventDefault();
       setCorrecting(null);
-      setLine((l) => ({ position: correcting ? String(nextPosition) : l.position, ...EMPTY }));
+      setLine((l) => ({ position: correcting ? (resumeAt ?? String(nextPosition)) : l.position, ...EMPTY }));
+      setResumeAt(null);
       refs.current.hfe?.focus();
       return;
     }
@@ -149,7 +167,9 @@ export function EntryGrid({
   };
 
   const startCorrection = (row: MeasurementRow) => {
+    if (!correcting) setResumeAt(line.position);
     setCorrecting(row);
+    setServerError(null);
     setLine({ position: String(row.position), hfe: String(row.hfe), vbe: vbeUnit === 'V' ? String(row.vbeMv / 1000) : String(row.vbeMv), vceSat: row.vceSatMv === null ? '' : String(row.vceSatMv), leakage: row.leakageNa === null ? '' : String(row.leakageNa), reason: '' });
     setTimeout(() => refs.current.hfe?.select(), 0);
   };
@@ -310,7 +330,11 @@ export function EntryGrid({
         {hint && <p className="text-hold">{hint}</p>}
       </div>
       {serverError && <Notice tone="fail">{serverError.problem.errors?.map((e) => e.message).join('; ') || serverError.problem.detail}</Notice>}
-      {pending && <p className="text-sm text-ink-soft">Recording…</p>}
+      {saving.length > 0 && (
+        <p className="text-sm text-ink-soft" aria-live="polite">
+          Saving position {saving.map((x) => x.position).join(', ')}…
+        </p>
+      )}
 
       {entries.length > 0 && (
         <table className="w-full border-collapse text-sm" aria-label="Readings recorded in this sitting">

@@ -25,10 +25,19 @@ export function LotPlanPanel({ data, canRecordCorrectiveAction }: { data: LotPla
   const done = plan ? Math.min(data.measured, plan.sampleSize) : 0;
   return (
     <Panel title="Sampling plan">
-      <div className="mb-3 flex flex-wrap items-center gap-2" data-testid="severity">
-        <StatusTag tone={SEVERITY_TONE[switching.severity]}>{switching.severity === 'discontinued' ? 'acceptance discontinued' : `${switching.severity} inspection`}</StatusTag>
-        <span className="text-sm text-ink-soft">{switching.reason}</span>
-      </div>
+      {data.planAsSigned ? (
+        <div className="mb-3 flex flex-wrap items-center gap-2" data-testid="severity">
+          <StatusTag tone={SEVERITY_TONE[data.planSeverity]}>{`${data.planSeverity} inspection`}</StatusTag>
+          <span className="text-sm text-ink-soft">
+            The plan this lot was judged by, as stored with the signature. The supplier now stands on {switching.severity}: {switching.reason}
+          </span>
+        </div>
+      ) : (
+        <div className="mb-3 flex flex-wrap items-center gap-2" data-testid="severity">
+          <StatusTag tone={SEVERITY_TONE[switching.severity]}>{switching.severity === 'discontinued' ? 'acceptance discontinued' : `${switching.severity} inspection`}</StatusTag>
+          <span className="text-sm text-ink-soft">{switching.reason}</span>
+        </div>
+      )}
       {plan ? (
         <>
           <dl className="grid grid-cols-2 gap-x-4 gap-y-2 sm:grid-cols-4">
@@ -78,7 +87,7 @@ export function LotPlanPanel({ data, canRecordCorrectiveAction }: { data: LotPla
           {data.planError} Ask a quality engineer to check the part type's sampling settings in the Catalog.
         </Notice>
       )}
-      {switching.acceptanceBlocked && canRecordCorrectiveAction && <CorrectiveActionForm supplierId={switching.supplierId} partTypeId={switching.partTypeId} />}
+      {switching.acceptanceBlocked && canRecordCorrectiveAction && !data.planAsSigned && <CorrectiveActionForm supplierId={switching.supplierId} partTypeId={switching.partTypeId} />}
     </Panel>
   );
 }
