@@ -32,7 +32,7 @@ import { clusterEnv, startCluster, type RunningCluster } from './lib/pg-cluster.
 
 const ROWS = Number(process.env.BENCH_ROWS ?? 100_000);
 const RUNS = 3;
-const SUMMARY_RUNS = 9;
+const SUMMARY_RUNS = 15;
 const AMBIENT_C = 27;
 const PASSWORD = 'bench-password-123';
 const root = path.resolve('.data/bench');
@@ -258,7 +258,7 @@ async function main() {
 
     // (c) summary of the 100 000-part lot (after three warm-up calls)
     await ds.query('ANALYZE measurement');
-    for (let i = 0; i < 3; i++) await lotSummary(ds, summaryLotId);
+    for (let i = 0; i < 5; i++) await lotSummary(ds, summaryLotId);
     const direct: number[] = [];
     for (let i = 0; i < SUMMARY_RUNS; i++) {
       const t = performance.now();

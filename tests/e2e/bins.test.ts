@@ -61,7 +61,7 @@ describe('Bins in Chromium', () => {
     await page.getByRole('navigation', { name: 'Areas' }).getByRole('link', { name: 'Bins' }).click();
     await page.getByRole('heading', { name: 'Bins', exact: true }).waitFor();
     // The scan field has focus on arrival.
-    expect(await page.evaluate(() => document.activeElement?.id)).toBe('container-scan');
+    expect(await page.evaluate('document.activeElement?.id')).toBe('container-scan');
 
     const chart = page.getByRole('figure', { name: `Stock of ${partNumber} per gain bin` });
     await chart.waitFor();

@@ -150,19 +150,46 @@ export function parseAndValidate(
   return cols;
 }
 
-/** A PostgreSQL array literal of numbers (NULL for null). */
-function arrayLiteral(values: ArrayLike<number | null>, from: number, to: number): string {
-  const parts = new Array<string>(to - from);
+const FLOAT8 = 701;
+const INT4 = 23;
+
+/**
+ * A one-dimensional PostgreSQL array in the binary wire format of array_recv (ndim, has-nulls
+ * flag, element type, size, lower bound, then length-prefixed big-endian elements; −1 for NULL).
+ * pg sends a Buffer parameter in binary, so PostgreSQL neither parses text numbers nor does the
+ * client format them: both ends copy bytes.
+ */
+export function binaryArray(values: ArrayLike<number | null>, from: number, to: number, oid: typeof FLOAT8 | typeof INT4): Buffer {
+  const n = to - from;
+  const size = oid === FLOAT8 ? 8 : 4;
+  let nulls = 0;
+  for (let i = from; i < to; i++) if (values[i] === null) nulls++;
+  const buf = Buffer.allocUnsafe(20 + n * 4 + (n - nulls) * size);
+  buf.writeInt32BE(1, 0);
+  buf.writeInt32BE(nulls ? 1 : 0, 4);
+  buf.writeInt32BE(oid, 8);
+  buf.writeInt32BE(n, 12);
+  buf.writeInt32BE(1, 16);
+  let o = 20;
   for (let i = from; i < to; i++) {
     const v = values[i];
-    parts[i - from] = v === null ? 'NULL' : String(v);
+    if (v === null) {
+      buf.writeInt32BE(-1, o);
+      o += 4;
+    } else {
+      buf.writeInt32BE(size, o);
+      o += 4;
+      if (oid === FLOAT8) buf.writeDoubleBE(v, o);
+      else buf.writeInt32BE(v, o);
+      o += size;
+    }
   }
-  return `{${parts.join(',')}}`;
+  return buf;
 }
 
 /**
  * Writes validated columns with multi-row INSERT … SELECT FROM unnest(arrays), INSERT_CHUNK rows
- * per statement, in the caller's transaction.
+ * per statement, the arrays sent in binary, in the caller's transaction.
  */
 export async function bulkInsert(
   m: EntityManager,
@@ -182,14 +209,14 @@ export async function bulkInsert(
         ids.lotId,
         ids.sessionId,
         ids.userId,
-        arrayLiteral(cols.position, from, to),
-        arrayLiteral(cols.hfe, from, to),
-        arrayLiteral(cols.vbeMv, from, to),
-        arrayLiteral(cols.vceSatMv, from, to),
-        arrayLiteral(cols.leakageNa, from, to),
-        arrayLiteral(cols.hfe25, from, to),
-        arrayLiteral(cols.vbeMv25, from, to),
-        arrayLiteral(cols.sourceRow, from, to),
+        binaryArray(cols.position, from, to, INT4),
+        binaryArray(cols.hfe, from, to, FLOAT8),
+        binaryArray(cols.vbeMv, from, to, FLOAT8),
+        binaryArray(cols.vceSatMv, from, to, FLOAT8),
+        binaryArray(cols.leakageNa, from, to, FLOAT8),
+        binaryArray(cols.hfe25, from, to, FLOAT8),
+        binaryArray(cols.vbeMv25, from, to, FLOAT8),
+        binaryArray(cols.sourceRow, from, to, INT4),
       ],
     );
   }

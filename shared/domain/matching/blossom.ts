@@ -21,12 +21,17 @@ export interface BlossomGraph {
 }
 
 /**
- * A starting point: matched edges (per vertex, the edge index or −1) and the vertex duals in the
- * doubled convention of the formulation (slack of edge k = dual[i] + dual[j] − 2·w[k]). The
- * caller guarantees: every slack ≥ 0, every matched edge has slack 0, and — for exact integer
- * arithmetic — every dual even and every weight an integer. In max-cardinality mode on a graph
- * with a perfect matching these are all the algorithm needs; otherwise the free vertices must
- * also share the smallest dual, which holds for the default start (all duals = max weight).
+ * A starting point: matched edges (per vertex, the edge index or −1, no blossoms) and the vertex
+ * duals in the doubled convention of the formulation (slack of edge k = dual[i] + dual[j] − 2·w[k]).
+ * The caller guarantees every slack ≥ 0 and every matched edge at slack 0; integer weights and
+ * even duals keep every later step an integer (vertices joined by tight edges share a parity).
+ * Without maxCardinality the duals must also be ≥ 0, and nothing else is needed: the roots are
+ * the free vertices whose dual is still positive (a free vertex at 0 already meets complementary
+ * slackness), and the type-1 step becomes the smallest dual among the outer vertices — when it
+ * reaches 0 at an outer vertex x, the tree path from its root to x is flipped, leaving x free at
+ * dual 0. With the default start (all duals equal) this is exactly the classic algorithm.
+ * With maxCardinality, a start must keep the classic condition: the free vertices share the
+ * smallest dual.
  */
 export interface BlossomStart {
   readonly mateEdge: Int32Array;
@@ -37,18 +42,6 @@ export interface BlossomOptions {
   /** Maximum weight among the matchings of maximum cardinality. */
   readonly maxCardinality?: boolean;
   readonly start?: BlossomStart;
-  /**
-   * Grow one alternating tree per stage, from one free vertex whose dual is still positive,
-   * instead of a forest from all free vertices; not with maxCardinality. A stage ends when the
-   * tree reaches any free vertex by a tight edge (augment), or when the dual of one of its outer
-   * vertices x reaches 0 (the even path from the root to x is flipped: the root is matched and x
-   * left free, with dual 0 as complementary slackness asks — x is the root itself when no partner
-   * is worth having). Every step keeps the duals feasible and the matched edges tight, and the
-   * stages end when every free vertex has dual 0, which is the optimality condition; so the
-   * result is the same maximum weight as the forest version, but each stage costs the size of one
-   * tree, and any feasible start (duals ≥ 0, matched edges tight, no blossoms) is accepted.
-   */
-  readonly singleTree?: boolean;
 }
 
 export interface BlossomSolution {
@@ -68,137 +61,176 @@ export interface BlossomSolution {
  * weights every dual value stays an integer and the result is exact. Weights have no unit.
  */
 export function solveMaxWeightMatching(graph: BlossomGraph, options: BlossomOptions = {}): BlossomSolution {
-  const maxCardinality = options.maxCardinality === true;
-  const singleTree = options.singleTree === true;
-  const start = options.start;
-  if (singleTree && maxCardinality) throw new Error('solveMaxWeightMatching: singleTree does not combine with maxCardinality');
-  const n = graph.nVertex;
-  const ei = graph.edgeI;
-  const ej = graph.edgeJ;
-  const wt = graph.weight;
-  const m = ei.length;
+  return new BlossomSolver(graph, options.maxCardinality === true, options.start).run();
+}
 
-  const endpoint = new Int32Array(2 * m);
-  const nbStart = new Int32Array(n + 1);
-  for (let k = 0; k < m; k++) {
-    endpoint[2 * k] = ei[k] as number;
-    endpoint[2 * k + 1] = ej[k] as number;
-    nbStart[(ei[k] as number) + 1]++;
-    nbStart[(ej[k] as number) + 1]++;
-  }
-  for (let v = 0; v < n; v++) nbStart[v + 1] = (nbStart[v + 1] as number) + (nbStart[v] as number);
-  const nbList = new Int32Array(2 * m);
-  const fill = nbStart.slice(0, n);
-  for (let k = 0; k < m; k++) {
-    const i = ei[k] as number;
-    const j = ej[k] as number;
-    nbList[fill[i]++ as number] = 2 * k + 1;
-    nbList[fill[j]++ as number] = 2 * k;
-  }
-
-  let maxWeight = 0;
-  for (let k = 0; k < m; k++) if ((wt[k] as number) > maxWeight) maxWeight = wt[k] as number;
-
-  const mate = new Int32Array(n).fill(-1);
-  const label = new Int8Array(2 * n);
-  const labelEnd = new Int32Array(2 * n).fill(-1);
-  const inBlossom = new Int32Array(n);
-  for (let v = 0; v < n; v++) inBlossom[v] = v;
-  const blossomParent = new Int32Array(2 * n).fill(-1);
-  const blossomChilds: (number[] | null)[] = new Array<number[] | null>(2 * n).fill(null);
-  const blossomBase = new Int32Array(2 * n).fill(-1);
-  for (let v = 0; v < n; v++) blossomBase[v] = v;
-  const blossomEndps: (number[] | null)[] = new Array<number[] | null>(2 * n).fill(null);
-  const bestEdge = new Int32Array(2 * n).fill(-1);
-  const blossomBestEdges: (number[] | null)[] = new Array<number[] | null>(2 * n).fill(null);
-  const unusedBlossoms: number[] = [];
-  for (let b = 2 * n - 1; b >= n; b--) unusedBlossoms.push(b);
-  const dualVar = new Float64Array(2 * n);
-  const allowEdge = new Uint8Array(m);
-  const queue: number[] = [];
-
-  if (start) {
-    for (let v = 0; v < n; v++) {
-      dualVar[v] = start.dual[v] as number;
-      const k = start.mateEdge[v] as number;
-      if (k >= 0) mate[v] = ei[k] === v ? 2 * k + 1 : 2 * k;
-    }
-  } else {
-    for (let v = 0; v < n; v++) dualVar[v] = maxWeight;
-  }
-
+/** The state of one run; one method per step of the formulation, so each stays small and fast. */
+class BlossomSolver {
+  private readonly n: number;
+  private readonly ei: Int32Array;
+  private readonly ej: Int32Array;
+  private readonly wt: Float64Array;
+  private readonly endpoint: Int32Array;
+  private readonly nbStart: Int32Array;
+  private readonly nbList: Int32Array;
+  private readonly mate: Int32Array;
+  private readonly label: Int8Array;
+  private readonly labelEnd: Int32Array;
+  private readonly inBlossom: Int32Array;
+  private readonly blossomParent: Int32Array;
+  private readonly blossomChilds: (number[] | null)[];
+  private readonly blossomBase: Int32Array;
+  private readonly blossomEndps: (number[] | null)[];
+  private readonly bestEdge: Int32Array;
+  private readonly blossomBestEdges: (number[] | null)[];
+  private readonly unusedBlossoms: number[] = [];
+  private readonly dualVar: Float64Array;
+  private readonly allowEdge: Uint8Array;
+  private readonly queue: number[] = [];
   // Per-stage bookkeeping: what was set this stage, so the reset and the scans touch only that.
-  let stage = 0;
-  const labelMark = new Int32Array(2 * n).fill(-1);
-  const labelled: number[] = [];
-  const bestMark = new Int32Array(2 * n).fill(-1);
-  const bestSet: number[] = [];
-  const allowed: number[] = [];
-  const bbeSet: number[] = [];
-  const bestEdgeTo = new Int32Array(2 * n).fill(-1);
+  private stage = 0;
+  private readonly labelMark: Int32Array;
+  private readonly labelled: number[] = [];
+  private readonly bestMark: Int32Array;
+  private readonly bestSet: number[] = [];
+  private readonly allowed: number[] = [];
+  private readonly bbeSet: number[] = [];
+  private readonly bestEdgeTo: Int32Array;
+  private readonly scratch: number[] = [];
+  private free: number[] = [];
 
-  const setLabel = (x: number, t: number): void => {
-    label[x] = t;
-    if (labelMark[x] !== stage) {
-      labelMark[x] = stage;
-      labelled.push(x);
+  constructor(
+    graph: BlossomGraph,
+    private readonly maxCardinality: boolean,
+    start: BlossomStart | undefined,
+  ) {
+    const n = graph.nVertex;
+    const ei = graph.edgeI;
+    const ej = graph.edgeJ;
+    const m = ei.length;
+    this.n = n;
+    this.ei = ei;
+    this.ej = ej;
+    this.wt = graph.weight;
+    const endpoint = new Int32Array(2 * m);
+    const nbStart = new Int32Array(n + 1);
+    for (let k = 0; k < m; k++) {
+      endpoint[2 * k] = ei[k] as number;
+      endpoint[2 * k + 1] = ej[k] as number;
+      nbStart[(ei[k] as number) + 1]++;
+      nbStart[(ej[k] as number) + 1]++;
     }
-  };
-  const setBest = (x: number, k: number): void => {
-    bestEdge[x] = k;
-    if (bestMark[x] !== stage) {
-      bestMark[x] = stage;
-      bestSet.push(x);
+    for (let v = 0; v < n; v++) nbStart[v + 1] = (nbStart[v + 1] as number) + (nbStart[v] as number);
+    const nbList = new Int32Array(2 * m);
+    const fill = nbStart.slice(0, n);
+    for (let k = 0; k < m; k++) {
+      const i = ei[k] as number;
+      const j = ej[k] as number;
+      nbList[fill[i]++ as number] = 2 * k + 1;
+      nbList[fill[j]++ as number] = 2 * k;
     }
-  };
-  const allow = (k: number): void => {
-    if (allowEdge[k] === 0) {
-      allowEdge[k] = 1;
-      allowed.push(k);
-    }
-  };
-  const slack = (k: number): number =>
-    (dualVar[ei[k] as number] as number) + (dualVar[ej[k] as number] as number) - 2 * (wt[k] as number);
+    this.endpoint = endpoint;
+    this.nbStart = nbStart;
+    this.nbList = nbList;
 
-  /** Leaves (vertices) of blossom b, depth first in child order. */
-  const leaves = (b: number, out: number[]): number[] => {
-    if (b < n) {
+    this.mate = new Int32Array(n).fill(-1);
+    this.label = new Int8Array(2 * n);
+    this.labelEnd = new Int32Array(2 * n).fill(-1);
+    this.inBlossom = new Int32Array(n);
+    for (let v = 0; v < n; v++) this.inBlossom[v] = v;
+    this.blossomParent = new Int32Array(2 * n).fill(-1);
+    this.blossomChilds = new Array<number[] | null>(2 * n).fill(null);
+    this.blossomBase = new Int32Array(2 * n).fill(-1);
+    for (let v = 0; v < n; v++) this.blossomBase[v] = v;
+    this.blossomEndps = new Array<number[] | null>(2 * n).fill(null);
+    this.bestEdge = new Int32Array(2 * n).fill(-1);
+    this.blossomBestEdges = new Array<number[] | null>(2 * n).fill(null);
+    for (let b = 2 * n - 1; b >= n; b--) this.unusedBlossoms.push(b);
+    this.dualVar = new Float64Array(2 * n);
+    this.allowEdge = new Uint8Array(m);
+    this.labelMark = new Int32Array(2 * n).fill(-1);
+    this.bestMark = new Int32Array(2 * n).fill(-1);
+    this.bestEdgeTo = new Int32Array(2 * n).fill(-1);
+
+    if (start) {
+      for (let v = 0; v < n; v++) {
+        this.dualVar[v] = start.dual[v] as number;
+        const k = start.mateEdge[v] as number;
+        if (k >= 0) this.mate[v] = ei[k] === v ? 2 * k + 1 : 2 * k;
+      }
+    } else {
+      let maxWeight = 0;
+      for (let k = 0; k < m; k++) if ((this.wt[k] as number) > maxWeight) maxWeight = this.wt[k] as number;
+      for (let v = 0; v < n; v++) this.dualVar[v] = maxWeight;
+    }
+    for (let v = 0; v < n; v++) if (this.mate[v] === -1) this.free.push(v);
+  }
+
+  private setLabel(x: number, t: number): void {
+    this.label[x] = t;
+    if (this.labelMark[x] !== this.stage) {
+      this.labelMark[x] = this.stage;
+      this.labelled.push(x);
+    }
+  }
+
+  private setBest(x: number, k: number): void {
+    this.bestEdge[x] = k;
+    if (this.bestMark[x] !== this.stage) {
+      this.bestMark[x] = this.stage;
+      this.bestSet.push(x);
+    }
+  }
+
+  private allow(k: number): void {
+    if (this.allowEdge[k] === 0) {
+      this.allowEdge[k] = 1;
+      this.allowed.push(k);
+    }
+  }
+
+  private slack(k: number): number {
+    return (this.dualVar[this.ei[k] as number] as number) + (this.dualVar[this.ej[k] as number] as number) - 2 * (this.wt[k] as number);
+  }
+
+  /** Appends the leaves (vertices) of blossom b to out, depth first in child order. */
+  private leaves(b: number, out: number[]): number[] {
+    if (b < this.n) {
       out.push(b);
       return out;
     }
     const stack = [b];
     while (stack.length > 0) {
       const x = stack.pop() as number;
-      if (x < n) {
+      if (x < this.n) {
         out.push(x);
         continue;
       }
-      const ch = blossomChilds[x] as number[];
+      const ch = this.blossomChilds[x] as number[];
       for (let c = ch.length - 1; c >= 0; c--) stack.push(ch[c] as number);
     }
     return out;
-  };
+  }
 
-  const assignLabel = (w: number, t: number, p: number): void => {
-    const b = inBlossom[w] as number;
-    setLabel(w, t);
-    setLabel(b, t);
-    labelEnd[w] = p;
-    labelEnd[b] = p;
-    bestEdge[w] = -1;
-    bestEdge[b] = -1;
+  private assignLabel(w: number, t: number, p: number): void {
+    const b = this.inBlossom[w] as number;
+    this.setLabel(w, t);
+    this.setLabel(b, t);
+    this.labelEnd[w] = p;
+    this.labelEnd[b] = p;
+    this.bestEdge[w] = -1;
+    this.bestEdge[b] = -1;
     if (t === 1) {
-      const lv = leaves(b, []);
-      for (const v of lv) queue.push(v);
+      this.leaves(b, this.queue);
     } else {
-      const base = blossomBase[b] as number;
-      const mb = mate[base] as number;
-      assignLabel(endpoint[mb] as number, 1, mb ^ 1);
+      const mb = this.mate[this.blossomBase[b] as number] as number;
+      this.assignLabel(this.endpoint[mb] as number, 1, mb ^ 1);
     }
-  };
+  }
 
   /** Traces back from v and w to find a new blossom (returns its base) or an augmenting path (−1). */
-  const scanBlossom = (v0: number, w0: number): number => {
+  private scanBlossom(v0: number, w0: number): number {
+    const { inBlossom, label, labelEnd, endpoint } = this;
     let v = v0;
     let w = w0;
     const path: number[] = [];
@@ -206,7 +238,7 @@ export function solveMaxWeightMatching(graph: BlossomGraph, options: BlossomOpti
     while (v !== -1 || w !== -1) {
       let b = inBlossom[v] as number;
       if ((label[b] as number) & 4) {
-        base = blossomBase[b] as number;
+        base = this.blossomBase[b] as number;
         break;
       }
       path.push(b);
@@ -226,16 +258,17 @@ export function solveMaxWeightMatching(graph: BlossomGraph, options: BlossomOpti
     }
     for (const b of path) label[b] = 1;
     return base;
-  };
+  }
 
-  const addBlossom = (base: number, k: number): void => {
-    let v = ei[k] as number;
-    let w = ej[k] as number;
+  private addBlossom(base: number, k: number): void {
+    const { inBlossom, labelEnd, endpoint, blossomParent } = this;
+    let v = this.ei[k] as number;
+    let w = this.ej[k] as number;
     const bb = inBlossom[base] as number;
     let bv = inBlossom[v] as number;
     let bw = inBlossom[w] as number;
-    const b = unusedBlossoms.pop() as number;
-    blossomBase[b] = base;
+    const b = this.unusedBlossoms.pop() as number;
+    this.blossomBase[b] = base;
     blossomParent[b] = -1;
     blossomParent[bb] = b;
     const path: number[] = [];
@@ -258,73 +291,75 @@ export function solveMaxWeightMatching(graph: BlossomGraph, options: BlossomOpti
       w = endpoint[labelEnd[bw] as number] as number;
       bw = inBlossom[w] as number;
     }
-    blossomChilds[b] = path;
-    blossomEndps[b] = endps;
-    setLabel(b, 1);
+    this.blossomChilds[b] = path;
+    this.blossomEndps[b] = endps;
+    this.setLabel(b, 1);
     labelEnd[b] = labelEnd[bb] as number;
-    dualVar[b] = 0;
-    for (const x of leaves(b, [])) {
-      if (label[inBlossom[x] as number] === 2) queue.push(x);
+    this.dualVar[b] = 0;
+    for (const x of this.leaves(b, [])) {
+      if (this.label[inBlossom[x] as number] === 2) this.queue.push(x);
       inBlossom[x] = b;
     }
+    // Least-slack edge from the new blossom to each other S-blossom.
     const touched: number[] = [];
-    const consider = (k2: number): void => {
-      let j = ej[k2] as number;
-      if (inBlossom[j] === b) j = ei[k2] as number;
-      const bj = inBlossom[j] as number;
-      if (bj !== b && label[bj] === 1) {
-        const cur = bestEdgeTo[bj] as number;
-        if (cur === -1) {
-          touched.push(bj);
-          bestEdgeTo[bj] = k2;
-        } else if (slack(k2) < slack(cur)) {
-          bestEdgeTo[bj] = k2;
-        }
-      }
-    };
     for (const sub of path) {
-      const own = blossomBestEdges[sub];
+      const own = this.blossomBestEdges[sub];
       if (own === null || own === undefined) {
-        for (const x of leaves(sub, [])) {
-          const end = nbStart[x + 1] as number;
-          for (let a = nbStart[x] as number; a < end; a++) consider((nbList[a] as number) >> 1);
+        for (const x of this.leaves(sub, [])) {
+          const end = this.nbStart[x + 1] as number;
+          for (let a = this.nbStart[x] as number; a < end; a++) this.considerBest(b, (this.nbList[a] as number) >> 1, touched);
         }
       } else {
-        for (const k2 of own) consider(k2);
+        for (const k2 of own) this.considerBest(b, k2, touched);
       }
-      blossomBestEdges[sub] = null;
-      bestEdge[sub] = -1;
+      this.blossomBestEdges[sub] = null;
+      this.bestEdge[sub] = -1;
     }
     touched.sort((x, y) => x - y);
     const be: number[] = [];
     for (const bj of touched) {
-      be.push(bestEdgeTo[bj] as number);
-      bestEdgeTo[bj] = -1;
+      be.push(this.bestEdgeTo[bj] as number);
+      this.bestEdgeTo[bj] = -1;
     }
-    blossomBestEdges[b] = be;
-    bbeSet.push(b);
-    bestEdge[b] = -1;
+    this.blossomBestEdges[b] = be;
+    this.bbeSet.push(b);
+    this.bestEdge[b] = -1;
     for (const k2 of be) {
-      if (bestEdge[b] === -1 || slack(k2) < slack(bestEdge[b] as number)) setBest(b, k2);
+      if (this.bestEdge[b] === -1 || this.slack(k2) < this.slack(this.bestEdge[b] as number)) this.setBest(b, k2);
     }
-  };
+  }
 
-  const at = (arr: number[], idx: number): number => arr[idx < 0 ? idx + arr.length : idx] as number;
+  private considerBest(b: number, k2: number, touched: number[]): void {
+    let j = this.ej[k2] as number;
+    if (this.inBlossom[j] === b) j = this.ei[k2] as number;
+    const bj = this.inBlossom[j] as number;
+    if (bj !== b && this.label[bj] === 1) {
+      const cur = this.bestEdgeTo[bj] as number;
+      if (cur === -1) {
+        touched.push(bj);
+        this.bestEdgeTo[bj] = k2;
+      } else if (this.slack(k2) < this.slack(cur)) {
+        this.bestEdgeTo[bj] = k2;
+      }
+    }
+  }
 
-  const expandBlossom = (b: number, endStage: boolean): void => {
-    const childs = blossomChilds[b] as number[];
+  private expandBlossom(b: number, endStage: boolean): void {
+    const { inBlossom, label, labelEnd, endpoint } = this;
+    const n = this.n;
+    const childs = this.blossomChilds[b] as number[];
     for (const s of childs) {
-      blossomParent[s] = -1;
+      this.blossomParent[s] = -1;
       if (s < n) {
         inBlossom[s] = s;
-      } else if (endStage && dualVar[s] === 0) {
-        expandBlossom(s, endStage);
+      } else if (endStage && this.dualVar[s] === 0) {
+        this.expandBlossom(s, endStage);
       } else {
-        for (const x of leaves(s, [])) inBlossom[x] = s;
+        for (const x of this.leaves(s, [])) inBlossom[x] = s;
       }
     }
     if (!endStage && label[b] === 2) {
-      const endps = blossomEndps[b] as number[];
+      const endps = this.blossomEndps[b] as number[];
       const entryChild = inBlossom[endpoint[(labelEnd[b] as number) ^ 1] as number] as number;
       let j = childs.indexOf(entryChild);
       let jStep: number;
@@ -339,21 +374,21 @@ export function solveMaxWeightMatching(graph: BlossomGraph, options: BlossomOpti
       }
       let p = labelEnd[b] as number;
       while (j !== 0) {
-        setLabel(endpoint[p ^ 1] as number, 0);
-        setLabel(endpoint[at(endps, j - endpTrick) ^ endpTrick ^ 1] as number, 0);
-        assignLabel(endpoint[p ^ 1] as number, 2, p);
-        allow(at(endps, j - endpTrick) >> 1);
+        this.setLabel(endpoint[p ^ 1] as number, 0);
+        this.setLabel(endpoint[at(endps, j - endpTrick) ^ endpTrick ^ 1] as number, 0);
+        this.assignLabel(endpoint[p ^ 1] as number, 2, p);
+        this.allow(at(endps, j - endpTrick) >> 1);
         j += jStep;
         p = at(endps, j - endpTrick) ^ endpTrick;
-        allow(p >> 1);
+        this.allow(p >> 1);
         j += jStep;
       }
       const bv0 = at(childs, j);
-      setLabel(endpoint[p ^ 1] as number, 2);
-      setLabel(bv0, 2);
+      this.setLabel(endpoint[p ^ 1] as number, 2);
+      this.setLabel(bv0, 2);
       labelEnd[endpoint[p ^ 1] as number] = p;
       labelEnd[bv0] = p;
-      bestEdge[bv0] = -1;
+      this.bestEdge[bv0] = -1;
       j += jStep;
       while (at(childs, j) !== entryChild) {
         const bv = at(childs, j);
@@ -361,37 +396,38 @@ export function solveMaxWeightMatching(graph: BlossomGraph, options: BlossomOpti
           j += jStep;
           continue;
         }
-        const lv = leaves(bv, []);
         let v = -1;
-        for (const x of lv) {
+        for (const x of this.leaves(bv, [])) {
           v = x;
           if (label[x] !== 0) break;
         }
         if (v >= 0 && label[v] !== 0) {
-          setLabel(v, 0);
-          setLabel(endpoint[mate[blossomBase[bv] as number] as number] as number, 0);
-          assignLabel(v, 2, labelEnd[v] as number);
+          this.setLabel(v, 0);
+          this.setLabel(endpoint[this.mate[this.blossomBase[bv] as number] as number] as number, 0);
+          this.assignLabel(v, 2, labelEnd[v] as number);
         }
         j += jStep;
       }
     }
-    setLabel(b, -1);
+    this.setLabel(b, -1);
     labelEnd[b] = -1;
-    blossomChilds[b] = null;
-    blossomEndps[b] = null;
-    blossomBase[b] = -1;
-    blossomBestEdges[b] = null;
-    bestEdge[b] = -1;
-    unusedBlossoms.push(b);
-  };
+    this.blossomChilds[b] = null;
+    this.blossomEndps[b] = null;
+    this.blossomBase[b] = -1;
+    this.blossomBestEdges[b] = null;
+    this.bestEdge[b] = -1;
+    this.unusedBlossoms.push(b);
+  }
 
   /** Swaps matched and unmatched edges on the even path from vertex v to the base of blossom b. */
-  const augmentBlossom = (b: number, v: number): void => {
+  private augmentBlossom(b: number, v: number): void {
+    const { endpoint, mate } = this;
+    const n = this.n;
     let t = v;
-    while (blossomParent[t] !== b) t = blossomParent[t] as number;
-    if (t >= n) augmentBlossom(t, v);
-    let childs = blossomChilds[b] as number[];
-    let endps = blossomEndps[b] as number[];
+    while (this.blossomParent[t] !== b) t = this.blossomParent[t] as number;
+    if (t >= n) this.augmentBlossom(t, v);
+    const childs = this.blossomChilds[b] as number[];
+    const endps = this.blossomEndps[b] as number[];
     const i = childs.indexOf(t);
     let j = i;
     let jStep: number;
@@ -408,264 +444,284 @@ export function solveMaxWeightMatching(graph: BlossomGraph, options: BlossomOpti
       j += jStep;
       t = at(childs, j);
       const p = at(endps, j - endpTrick) ^ endpTrick;
-      if (t >= n) augmentBlossom(t, endpoint[p] as number);
+      if (t >= n) this.augmentBlossom(t, endpoint[p] as number);
       j += jStep;
       t = at(childs, j);
-      if (t >= n) augmentBlossom(t, endpoint[p ^ 1] as number);
+      if (t >= n) this.augmentBlossom(t, endpoint[p ^ 1] as number);
       mate[endpoint[p] as number] = p ^ 1;
       mate[endpoint[p ^ 1] as number] = p;
     }
-    childs = childs.slice(i).concat(childs.slice(0, i));
-    endps = endps.slice(i).concat(endps.slice(0, i));
-    blossomChilds[b] = childs;
-    blossomEndps[b] = endps;
-    blossomBase[b] = blossomBase[childs[0] as number] as number;
-  };
+    const rotated = childs.slice(i).concat(childs.slice(0, i));
+    this.blossomChilds[b] = rotated;
+    this.blossomEndps[b] = endps.slice(i).concat(endps.slice(0, i));
+    this.blossomBase[b] = this.blossomBase[rotated[0] as number] as number;
+  }
 
-  /** Swaps matched and unmatched edges along the augmenting path through edge k. */
-  const augmentMatching = (k: number): void => {
-    for (let side = 0; side < 2; side++) {
-      let s = side === 0 ? (ei[k] as number) : (ej[k] as number);
-      let p = side === 0 ? 2 * k + 1 : 2 * k;
-      for (;;) {
-        const bs = inBlossom[s] as number;
-        if (bs >= n) augmentBlossom(bs, s);
-        mate[s] = p;
-        if (labelEnd[bs] === -1) break;
-        const t = endpoint[labelEnd[bs] as number] as number;
-        const bt = inBlossom[t] as number;
-        s = endpoint[labelEnd[bt] as number] as number;
-        const j = endpoint[(labelEnd[bt] as number) ^ 1] as number;
-        if (bt >= n) augmentBlossom(bt, j);
-        mate[j] = labelEnd[bt] as number;
-        p = (labelEnd[bt] as number) ^ 1;
-      }
-    }
-  };
-
-  /** Flips the even tree path from the root to outer vertex x: the root is matched, x left free. */
-  const releaseVertex = (x: number): void => {
-    let s = x;
-    let p = -1;
+  /**
+   * Flips the alternating tree path from S-vertex s up to its root; s is then matched through
+   * endpoint p (p = −1 leaves s free). Both halves of an augmentation use it.
+   */
+  private flipToRoot(s0: number, p0: number): void {
+    const { inBlossom, labelEnd, endpoint, mate } = this;
+    let s = s0;
+    let p = p0;
     for (;;) {
       const bs = inBlossom[s] as number;
-      if (bs >= n) augmentBlossom(bs, s);
+      if (bs >= this.n) this.augmentBlossom(bs, s);
       mate[s] = p;
       if (labelEnd[bs] === -1) break;
       const t = endpoint[labelEnd[bs] as number] as number;
       const bt = inBlossom[t] as number;
       s = endpoint[labelEnd[bt] as number] as number;
       const j = endpoint[(labelEnd[bt] as number) ^ 1] as number;
-      if (bt >= n) augmentBlossom(bt, j);
+      if (bt >= this.n) this.augmentBlossom(bt, j);
       mate[j] = labelEnd[bt] as number;
       p = (labelEnd[bt] as number) ^ 1;
     }
-  };
+  }
 
-  const minVertexDual = (): number => {
+  /** Swaps matched and unmatched edges along the augmenting path through edge k. */
+  private augmentMatching(k: number): void {
+    this.flipToRoot(this.ei[k] as number, 2 * k + 1);
+    this.flipToRoot(this.ej[k] as number, 2 * k);
+  }
+
+  private minVertexDual(): number {
     let d = Infinity;
-    for (let v = 0; v < n; v++) if ((dualVar[v] as number) < d) d = dualVar[v] as number;
+    for (let v = 0; v < this.n; v++) if ((this.dualVar[v] as number) < d) d = this.dualVar[v] as number;
     return d;
-  };
+  }
 
-  let free: number[] = [];
-  for (let v = 0; v < n; v++) if (mate[v] === -1) free.push(v);
-  let augmentations = 0;
-
-  for (;;) {
-    // Start of a stage: forget last stage's labels, best edges and allowed edges.
-    stage++;
-    for (const x of labelled) label[x] = 0;
-    labelled.length = 0;
-    for (const x of bestSet) bestEdge[x] = -1;
-    bestSet.length = 0;
-    for (const k of allowed) allowEdge[k] = 0;
-    allowed.length = 0;
-    for (const b of bbeSet) blossomBestEdges[b] = null;
-    bbeSet.length = 0;
-    queue.length = 0;
+  /** Resets what the last stage set and labels the root(s); false when no root is left. */
+  private startStage(): boolean {
+    this.stage++;
+    for (const x of this.labelled) this.label[x] = 0;
+    this.labelled.length = 0;
+    for (const x of this.bestSet) this.bestEdge[x] = -1;
+    this.bestSet.length = 0;
+    for (const k of this.allowed) this.allowEdge[k] = 0;
+    this.allowed.length = 0;
+    for (const b of this.bbeSet) this.blossomBestEdges[b] = null;
+    this.bbeSet.length = 0;
+    this.queue.length = 0;
 
     const stillFree: number[] = [];
-    let rooted = false;
-    for (const v of free) {
-      if (mate[v] !== -1) continue;
-      if (singleTree) {
-        // A free vertex with dual 0 already satisfies complementary slackness and stays as it is.
-        if (dualVar[v] === 0) continue;
-        stillFree.push(v);
-        if (rooted) continue;
-        rooted = true;
-      } else {
-        stillFree.push(v);
-      }
-      if (label[inBlossom[v] as number] === 0) assignLabel(v, 1, -1);
+    for (const v of this.free) {
+      if (this.mate[v] !== -1) continue;
+      // Without maxCardinality a free vertex with dual 0 already satisfies complementary
+      // slackness; it is no root, but a tree may still end at it.
+      if (!this.maxCardinality && this.dualVar[v] === 0) continue;
+      stillFree.push(v);
+      if (this.label[this.inBlossom[v] as number] === 0) this.assignLabel(v, 1, -1);
     }
-    free = stillFree;
-    if (singleTree && !rooted) break;
+    this.free = stillFree;
+    return this.maxCardinality || stillFree.length > 0;
+  }
 
-    let augmented = false;
-    for (;;) {
-      while (queue.length > 0 && !augmented) {
-        const v = queue.pop() as number;
-        const end = nbStart[v + 1] as number;
-        for (let a = nbStart[v] as number; a < end; a++) {
-          const p = nbList[a] as number;
-          const k = p >> 1;
-          const w = endpoint[p] as number;
-          if (inBlossom[v] === inBlossom[w]) continue;
-          let kSlack = 0;
-          if (allowEdge[k] === 0) {
-            kSlack = slack(k);
-            if (kSlack <= 0) allow(k);
-          }
-          if (allowEdge[k] === 1) {
-            const lw = label[inBlossom[w] as number];
-            if (lw === 0) {
-              const bw = inBlossom[w] as number;
-              if (singleTree && mate[blossomBase[bw] as number] === -1) {
-                // The tree reached a free vertex outside it: that vertex is the other end of the path.
-                setLabel(bw, 1);
-                labelEnd[bw] = -1;
-                augmentMatching(k);
-                augmented = true;
-                break;
-              }
-              assignLabel(w, 2, p ^ 1);
-            } else if (lw === 1) {
-              const base = scanBlossom(v, w);
-              if (base >= 0) {
-                addBlossom(base, k);
-              } else {
-                augmentMatching(k);
-                augmented = true;
-                break;
-              }
-            } else if (label[w] === 0) {
-              setLabel(w, 2);
-              labelEnd[w] = p ^ 1;
+  /** Follows tight edges from the queued S-vertices; true when the matching was augmented. */
+  private scanQueue(): boolean {
+    const { inBlossom, label, labelEnd, endpoint, allowEdge, bestEdge, nbStart, nbList, queue } = this;
+    while (queue.length > 0) {
+      const v = queue.pop() as number;
+      const end = nbStart[v + 1] as number;
+      for (let a = nbStart[v] as number; a < end; a++) {
+        const p = nbList[a] as number;
+        const k = p >> 1;
+        const w = endpoint[p] as number;
+        if (inBlossom[v] === inBlossom[w]) continue;
+        let kSlack = 0;
+        if (allowEdge[k] === 0) {
+          kSlack = this.slack(k);
+          if (kSlack <= 0) this.allow(k);
+        }
+        if (allowEdge[k] === 1) {
+          const bw = inBlossom[w] as number;
+          const lw = label[bw];
+          if (lw === 0) {
+            if (this.mate[this.blossomBase[bw] as number] === -1) {
+              // A free vertex that is no root (dual 0): the other end of an augmenting path.
+              this.setLabel(bw, 1);
+              labelEnd[bw] = -1;
+              this.augmentMatching(k);
+              return true;
             }
-          } else if (label[inBlossom[w] as number] === 1) {
-            const b = inBlossom[v] as number;
-            if (bestEdge[b] === -1 || kSlack < slack(bestEdge[b] as number)) setBest(b, k);
+            this.assignLabel(w, 2, p ^ 1);
+          } else if (lw === 1) {
+            const base = this.scanBlossom(v, w);
+            if (base >= 0) {
+              this.addBlossom(base, k);
+            } else {
+              this.augmentMatching(k);
+              return true;
+            }
           } else if (label[w] === 0) {
-            if (bestEdge[w] === -1 || kSlack < slack(bestEdge[w] as number)) setBest(w, k);
+            this.setLabel(w, 2);
+            labelEnd[w] = p ^ 1;
           }
+        } else if (label[inBlossom[w] as number] === 1) {
+          const b = inBlossom[v] as number;
+          if (bestEdge[b] === -1 || kSlack < this.slack(bestEdge[b] as number)) this.setBest(b, k);
+        } else if (label[w] === 0) {
+          if (bestEdge[w] === -1 || kSlack < this.slack(bestEdge[w] as number)) this.setBest(w, k);
         }
-      }
-      if (augmented) break;
-
-      // No tight edge left to follow: change the duals by the largest step that keeps them feasible.
-      let deltaType = -1;
-      let delta = 0;
-      let deltaEdge = -1;
-      let deltaBlossom = -1;
-      let zeroVertex = -1;
-      if (singleTree) {
-        // Smallest dual among the tree's outer (S) vertices.
-        deltaType = 1;
-        delta = Infinity;
-        const lv: number[] = [];
-        for (const x of labelled) {
-          if (blossomParent[x] !== -1 || label[x] !== 1) continue;
-          if (x >= n && (blossomBase[x] as number) < 0) continue;
-          lv.length = 0;
-          for (const v of leaves(x, lv)) {
-            if ((dualVar[v] as number) < delta) {
-              delta = dualVar[v] as number;
-              zeroVertex = v;
-            }
-          }
-        }
-      } else if (!maxCardinality) {
-        deltaType = 1;
-        delta = minVertexDual();
-      }
-      for (const v of bestSet) {
-        if (v < n && label[inBlossom[v] as number] === 0 && bestEdge[v] !== -1) {
-          const d = slack(bestEdge[v] as number);
-          if (deltaType === -1 || d < delta) {
-            delta = d;
-            deltaType = 2;
-            deltaEdge = bestEdge[v] as number;
-          }
-        }
-      }
-      for (const b of labelled) {
-        if (blossomParent[b] === -1 && label[b] === 1 && bestEdge[b] !== -1) {
-          const d = slack(bestEdge[b] as number) / 2;
-          if (deltaType === -1 || d < delta) {
-            delta = d;
-            deltaType = 3;
-            deltaEdge = bestEdge[b] as number;
-          }
-        }
-      }
-      for (const b of labelled) {
-        if (
-          b >= n &&
-          (blossomBase[b] as number) >= 0 &&
-          blossomParent[b] === -1 &&
-          label[b] === 2 &&
-          (deltaType === -1 || (dualVar[b] as number) < delta)
-        ) {
-          delta = dualVar[b] as number;
-          deltaType = 4;
-          deltaBlossom = b;
-        }
-      }
-      if (deltaType === -1) {
-        // Max-cardinality optimum reached; a final step makes it verifiable (as in the formulation).
-        deltaType = 1;
-        delta = Math.max(0, minVertexDual());
-      }
-
-      const scratch: number[] = [];
-      for (const x of labelled) {
-        if (blossomParent[x] !== -1) continue;
-        if (x >= n && (blossomBase[x] as number) < 0) continue;
-        const lx = label[x];
-        if (lx !== 1 && lx !== 2) continue;
-        scratch.length = 0;
-        const sign = lx === 1 ? -1 : 1;
-        for (const v of leaves(x, scratch)) dualVar[v] = (dualVar[v] as number) + sign * delta;
-        if (x >= n) dualVar[x] = (dualVar[x] as number) - sign * delta;
-      }
-
-      if (deltaType === 1) {
-        if (singleTree && zeroVertex >= 0) {
-          const wasMatched = mate[zeroVertex] !== -1;
-          if (wasMatched || inBlossom[zeroVertex] !== zeroVertex) releaseVertex(zeroVertex);
-          if (wasMatched) free.push(zeroVertex);
-          augmented = true;
-        }
-        break;
-      }
-      if (deltaType === 2) {
-        allow(deltaEdge);
-        let i = ei[deltaEdge] as number;
-        if (label[inBlossom[i] as number] === 0) i = ej[deltaEdge] as number;
-        queue.push(i);
-      } else if (deltaType === 3) {
-        allow(deltaEdge);
-        queue.push(ei[deltaEdge] as number);
-      } else {
-        expandBlossom(deltaBlossom, false);
       }
     }
-    if (!augmented) break;
-    augmentations++;
+    return false;
+  }
 
-    // End of stage: expand S-blossoms whose dual reached zero.
-    for (const b of labelled.slice()) {
-      if (b >= n && blossomParent[b] === -1 && (blossomBase[b] as number) >= 0 && label[b] === 1 && dualVar[b] === 0) {
-        expandBlossom(b, true);
+  /** Adds delta to the duals of the labelled top-level blossoms (S: −, T: + for vertices). */
+  private applyDelta(delta: number): void {
+    const n = this.n;
+    const scratch = this.scratch;
+    for (const x of this.labelled) {
+      if (this.blossomParent[x] !== -1) continue;
+      if (x >= n && (this.blossomBase[x] as number) < 0) continue;
+      const lx = this.label[x];
+      if (lx !== 1 && lx !== 2) continue;
+      const d = lx === 1 ? -delta : delta;
+      if (x < n) {
+        this.dualVar[x] = (this.dualVar[x] as number) + d;
+      } else {
+        scratch.length = 0;
+        for (const v of this.leaves(x, scratch)) this.dualVar[v] = (this.dualVar[v] as number) + d;
+        this.dualVar[x] = (this.dualVar[x] as number) - d;
       }
     }
   }
 
-  const mateVertex = new Int32Array(n).fill(-1);
-  for (let v = 0; v < n; v++) if ((mate[v] as number) >= 0) mateVertex[v] = endpoint[mate[v] as number] as number;
-  return { mate: mateVertex, dual: dualVar, blossomParent, augmentations };
+  /**
+   * One dual step (Galil's δ1…δ4). Returns true when the stage is over: by a "δ1" event
+   * (single tree: an outer vertex reached dual 0 and was released; forest: optimum reached).
+   */
+  private dualStep(): 'continue' | 'stop' | 'released' {
+    const n = this.n;
+    const { label, inBlossom, bestEdge, blossomParent, dualVar } = this;
+    let deltaType = -1;
+    let delta = 0;
+    let deltaEdge = -1;
+    let deltaBlossom = -1;
+    let zeroVertex = -1;
+    if (!this.maxCardinality) {
+      // Smallest dual among the outer (S) vertices; the classic form takes the minimum over all
+      // vertices, which is the same when every free vertex starts with the same dual.
+      deltaType = 1;
+      delta = Infinity;
+      const lv = this.scratch;
+      for (const x of this.labelled) {
+        if (blossomParent[x] !== -1 || label[x] !== 1) continue;
+        if (x >= n && (this.blossomBase[x] as number) < 0) continue;
+        lv.length = 0;
+        for (const v of this.leaves(x, lv)) {
+          if ((dualVar[v] as number) < delta) {
+            delta = dualVar[v] as number;
+            zeroVertex = v;
+          }
+        }
+      }
+    }
+    for (const v of this.bestSet) {
+      if (v < n && label[inBlossom[v] as number] === 0 && bestEdge[v] !== -1) {
+        const d = this.slack(bestEdge[v] as number);
+        if (deltaType === -1 || d < delta) {
+          delta = d;
+          deltaType = 2;
+          deltaEdge = bestEdge[v] as number;
+        }
+      }
+    }
+    for (const b of this.labelled) {
+      if (blossomParent[b] === -1 && label[b] === 1 && bestEdge[b] !== -1) {
+        const d = this.slack(bestEdge[b] as number) / 2;
+        if (deltaType === -1 || d < delta) {
+          delta = d;
+          deltaType = 3;
+          deltaEdge = bestEdge[b] as number;
+        }
+      }
+    }
+    for (const b of this.labelled) {
+      if (
+        b >= n &&
+        (this.blossomBase[b] as number) >= 0 &&
+        blossomParent[b] === -1 &&
+        label[b] === 2 &&
+        (deltaType === -1 || (dualVar[b] as number) < delta)
+      ) {
+        delta = dualVar[b] as number;
+        deltaType = 4;
+        deltaBlossom = b;
+      }
+    }
+    if (deltaType === -1) {
+      // Max-cardinality optimum reached; a final step makes it verifiable (as in the formulation).
+      deltaType = 1;
+      delta = Math.max(0, this.minVertexDual());
+    }
+    this.applyDelta(delta);
+
+    if (deltaType === 1) {
+      if (!this.maxCardinality && zeroVertex >= 0) {
+        const wasMatched = this.mate[zeroVertex] !== -1;
+        if (wasMatched || inBlossom[zeroVertex] !== zeroVertex) this.flipToRoot(zeroVertex, -1);
+        if (wasMatched) this.free.push(zeroVertex);
+        return 'released';
+      }
+      return 'stop';
+    }
+    if (deltaType === 2) {
+      this.allow(deltaEdge);
+      let i = this.ei[deltaEdge] as number;
+      if (label[inBlossom[i] as number] === 0) i = this.ej[deltaEdge] as number;
+      this.queue.push(i);
+    } else if (deltaType === 3) {
+      this.allow(deltaEdge);
+      this.queue.push(this.ei[deltaEdge] as number);
+    } else {
+      this.expandBlossom(deltaBlossom, false);
+    }
+    return 'continue';
+  }
+
+  run(): BlossomSolution {
+    const n = this.n;
+    let augmentations = 0;
+    while (this.startStage()) {
+      let changed = false;
+      for (;;) {
+        if (this.scanQueue()) {
+          changed = true;
+          break;
+        }
+        const step = this.dualStep();
+        if (step === 'released') changed = true;
+        if (step !== 'continue') break;
+      }
+      if (!changed) break;
+      augmentations++;
+      // End of stage: expand S-blossoms whose dual reached zero.
+      for (const b of this.labelled.slice()) {
+        if (
+          b >= n &&
+          this.blossomParent[b] === -1 &&
+          (this.blossomBase[b] as number) >= 0 &&
+          this.label[b] === 1 &&
+          this.dualVar[b] === 0
+        ) {
+          this.expandBlossom(b, true);
+        }
+      }
+    }
+    const mateVertex = new Int32Array(n).fill(-1);
+    for (let v = 0; v < n; v++) {
+      if ((this.mate[v] as number) >= 0) mateVertex[v] = this.endpoint[this.mate[v] as number] as number;
+    }
+    return { mate: mateVertex, dual: this.dualVar, blossomParent: this.blossomParent, augmentations };
+  }
+}
+
+/** Python-style index into a cyclic list: negative idx counts from the end (|idx| < length). */
+function at(arr: number[], idx: number): number {
+  return arr[idx < 0 ? idx + arr.length : idx] as number;
 }
 
 /**

@@ -201,20 +201,20 @@ function solveSparse(n: number, edgeA: Int32Array, edgeB: Int32Array, cost: Floa
   console.log('oddFree', oddFree.length);
   if (oddFree.length === 0) return { mate, pi };
 
-  // Odd cycles: finish with the blossom algorithm, one tree per free item, started from this
-  // matching and these duals (max-weight form: w = 2P − q, y = 2P − 2·pi ≥ 0).
+  // Odd cycles: finish with the blossom algorithm, started from this matching and these duals.
+  // Max-weight form, all doubled so the duals are even: w = 2(2P − q), y = 2(2P − 2·pi) ≥ 0.
   const edgeI = new Int32Array(edgeA);
   const edgeJ = new Int32Array(edgeB);
   const weight = new Float64Array(m);
   const edgeOf = new Map<number, number>();
   for (let e = 0; e < m; e++) {
-    weight[e] = self - (cost[e] as number);
+    weight[e] = 2 * (self - (cost[e] as number));
     edgeOf.set((edgeA[e] as number) * n + (edgeB[e] as number), e);
   }
   const mateEdge = new Int32Array(n).fill(-1);
   const dual = new Float64Array(n);
   for (let a = 0; a < n; a++) {
-    dual[a] = self - 2 * (pi[a] as number);
+    dual[a] = 2 * (self - 2 * (pi[a] as number));
     const b = mate[a] as number;
     if (b > a) {
       const e = edgeOf.get(a * n + b) as number;
@@ -223,8 +223,8 @@ function solveSparse(n: number, edgeA: Int32Array, edgeB: Int32Array, cost: Floa
     }
   }
   const T1 = performance.now();
-  const res = solveMaxWeightMatching({ nVertex: n, edgeI, edgeJ, weight }, { singleTree: true, start: { mateEdge, dual } });
+  const res = solveMaxWeightMatching({ nVertex: n, edgeI, edgeJ, weight }, { start: { mateEdge, dual } });
   console.log('blossom ms', (performance.now() - T1).toFixed(1), res.augmentations);
-  for (let a = 0; a < n; a++) pi[a] = (self - (res.dual[a] as number)) / 2;
+  for (let a = 0; a < n; a++) pi[a] = (2 * self - (res.dual[a] as number)) / 4;
   return { mate: res.mate, pi };
 }
