@@ -3,6 +3,7 @@ import { hashPassword } from '../server/modules/auth/password.ts';
 import { recordAudit } from '../server/modules/audit/audit.service.ts';
 import { User } from '../server/modules/users/user.entity.ts';
 import { seedDemoCatalog } from './demo-catalog.ts';
+import { seedDemoHistory } from './demo-history.ts';
 import { DEMO_PASSWORD, DEMO_USERS } from './demo-users.ts';
 
 /**
@@ -29,5 +30,6 @@ export async function seedDemo(ds: DataSource, log: (l: string) => void = () => 
   });
   if (created) log(`Demo scenario: created ${created} demo users.`);
   created += await seedDemoCatalog(ds, log);
+  created += await seedDemoHistory(ds, log);
   return { created };
 }

@@ -29,6 +29,7 @@ import { dispositionRouter } from './modules/disposition/disposition.routes.ts';
 import { measurementsRouter } from './modules/measurements/measurements.routes.ts';
 import { samplingRouter } from './modules/sampling/sampling.routes.ts';
 import { binsRouter } from './modules/bins/bins.routes.ts';
+import { supplierQualityRouter } from './modules/supplier-quality/supplier-quality.routes.ts';
 
 export interface AppOptions {
   dataSource: DataSource;
@@ -96,6 +97,8 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir, ma
   api.use(benchRouter(ds));
   // Bins: full paths (/containers…, /stock, /lots/:id/screening…, /labels/bins.pdf).
   api.use(binsRouter(ds));
+  // Suppliers area: full paths (/scorecards…, /drift-alerts…, /ncrs…, /order-plans…).
+  api.use(supplierQualityRouter(ds, { dataDir: config.dataDir, transport, from: config.smtp.from }));
   api.use('/lots', lotsRouter(ds, { dataDir: config.dataDir }));
   api.use('/settings', settingsRouter(ds));
   api.use('/mail', mailRouter(ds, config, transport));

@@ -16,6 +16,11 @@ import { BinsPage } from './routes/bins/bins-page.tsx';
 import { ContainerCodePage } from './routes/bins/container-code-page.tsx';
 import { ContainerPage } from './routes/bins/container-page.tsx';
 import { HomePage } from './routes/home.tsx';
+import { NcrPage } from './routes/suppliers/ncr-page.tsx';
+import { NcrsPage } from './routes/suppliers/ncrs-page.tsx';
+import { PlanningPage } from './routes/suppliers/planning-page.tsx';
+import { SupplierScorecardPage } from './routes/suppliers/supplier-scorecard-page.tsx';
+import { SuppliersPage } from './routes/suppliers/scorecards-page.tsx';
 import { NotFoundPage } from './routes/not-found.tsx';
 import { SignInPage } from './routes/sign-in.tsx';
 
@@ -34,7 +39,11 @@ export const routes: RouteObject[] = [
       { path: 'bins/containers/code/:code', element: <ContainerCodePage /> },
       { path: 'bins/containers/:id', element: <ContainerPage /> },
       { path: 'pairing', element: <AreaPage area="pairing" /> },
-      { path: 'suppliers', element: <AreaPage area="suppliers" /> },
+      { path: 'suppliers', element: <SuppliersPage /> },
+      { path: 'suppliers/ncrs', element: <NcrsPage /> },
+      { path: 'suppliers/ncrs/:id', element: <NcrPage /> },
+      { path: 'suppliers/planning', element: <PlanningPage /> },
+      { path: 'suppliers/:id', element: <SupplierScorecardPage /> },
       { path: 'catalog', element: <CatalogPartTypesPage /> },
       { path: 'catalog/part-types/:id', element: <CatalogPartTypeDetailPage /> },
       { path: 'catalog/suppliers', element: <CatalogSuppliersPage /> },

@@ -170,6 +170,8 @@ describe('the Bench in Chromium', () => {
     await page.goto(`${ctx.baseUrl}/bench`);
     await page.getByRole('table', { name: 'Lots at the bench' }).waitFor();
     await page.getByRole('button', { name: 'Disposed' }).click();
+    // Other tests share the database: find this lot by searching, as an inspector would.
+    await page.getByRole('searchbox').fill(lot.code);
     await page.getByRole('link', { name: lot.code }).waitFor();
     await page.screenshot({ path: `${SHOTS}/bench-queue.png`, fullPage: true });
     await page.close();

@@ -35,21 +35,32 @@ afterAll(async () => {
   await stopE2e(ctx);
 });
 
-/** The screening readings through the API, as the bench records them (session in screening mode, ten readings). */
+/** Ten parts screened at the Bench with the keyboard: a screening session, hFE Enter Vbe Enter, the bin shown in large type. */
 async function screenTenParts(page: Page): Promise<void> {
-  const base = ctx.baseUrl;
-  const { csrfToken } = (await (await page.request.get(`${base}/api/auth/csrf`)).json()) as { csrfToken: string };
-  const headers = { 'x-csrf-token': csrfToken };
-  const session = await page.request.post(`${base}/api/lots/${lotId}/sessions`, { headers, data: { instrument: 'Bench tester 2', ambientC: 25, mode: 'screen' } });
-  expect(session.status()).toBe(201);
-  const sessionId = ((await session.json()) as { id: number }).id;
+  await page.goto(`${ctx.baseUrl}/bench/lots/${lotId}`);
+  const form = page.getByRole('form', { name: 'Start a measurement session' });
+  await form.getByLabel('Instrument').fill('Bench tester 2');
+  await form.getByLabel('Ambient °C').fill('25');
+  await form.getByLabel('Mode').selectOption('screen');
+  await form.getByRole('button', { name: 'Start session' }).click();
+  await page.getByTestId('open-session').waitFor();
+  await expect.poll(() => page.locator(':focus').getAttribute('aria-label')).toBe('hFE');
+  const recorded = page.getByRole('table', { name: 'Readings recorded in this sitting' }).locator('tbody tr');
+  const callout = page.getByTestId('screening-callout');
   for (const [i, hfe] of HFES.entries()) {
-    const r = await page.request.post(`${base}/api/lots/${lotId}/measurements`, { headers, data: { sessionId, position: i + 1, hfe, vbe: 652 + i, vbeUnit: 'mV' } });
-    expect(r.status(), await r.text()).toBe(201);
+    await page.keyboard.type(String(hfe));
+    await page.keyboard.press('Enter');
+    await page.keyboard.type(String(652 + i));
+    await page.keyboard.press('Enter');
+    await expect.poll(() => recorded.count()).toBe(i + 1);
+    // The bin of the part just measured, in large type, before the next one is typed.
+    await expect.poll(async () => (await callout.textContent()) ?? '', { timeout: 10_000 }).toContain(`Part ${i + 1} goes to`);
+    expect(await callout.getByTestId('big-bin-code').textContent()).toBe(hfe < 200 ? 'A' : 'B');
+    if (i === 0) await page.screenshot({ path: `${SHOTS}/bins-bench-callout.png`, fullPage: false });
   }
-  // Places whatever the bench has not placed yet (idempotent: nothing, when the bench already did).
-  const placed = await page.request.post(`${base}/api/lots/${lotId}/screening/place`, { headers, data: {} });
-  expect(placed.status()).toBe(200);
+  expect(await callout.textContent()).toMatch(/position 5 of 50/);
+  await page.getByTestId('lot-screening').getByText('50.0 %').first().waitFor();
+  await page.screenshot({ path: `${SHOTS}/bins-bench-screened.png`, fullPage: true });
 }
 
 describe('Bins in Chromium', () => {
@@ -123,6 +134,20 @@ describe('Bins in Chromium', () => {
       ['a4-2x7', 3],
     ]);
     await page.screenshot({ path: `${SHOTS}/bins-print.png`, fullPage: true });
+    await page.close();
+  });
+
+  it('scanning a container code in the Dock scan field opens the container', async () => {
+    const [c] = (await ctx.ds.query(`SELECT code FROM container WHERE lot_id = $1 AND bin_code = 'A'`, [lotId])) as { code: string }[];
+    const page = await signIn(ctx, 'inspector@harrowpoint.test');
+    await page.getByTestId('user-name').waitFor();
+    await page.goto(`${ctx.baseUrl}/dock`);
+    const scan = page.locator('#scan-field');
+    await scan.waitFor();
+    await scan.fill(c?.code as string);
+    await page.keyboard.press('Enter');
+    await page.getByRole('heading', { name: `Container ${c?.code}` }).waitFor();
+    await page.getByTestId('big-bin-code').getByText('A').waitFor();
     await page.close();
   });
 

@@ -12,8 +12,11 @@ describe('demo catalog seed', () => {
     const { agent } = await signedIn(ctx, 'buyer');
     const parts = await agent.get('/api/part-types?search=HPA-&pageSize=50').expect(200);
     expect(parts.body.total).toBe(DEMO_PARTS.length);
-    const suppliers = await agent.get('/api/suppliers?pageSize=50').expect(200);
-    for (const s of DEMO_SUPPLIERS) expect(suppliers.body.items.map((r: { code: string }) => r.code)).toContain(s.code);
+    // Other tests share the database, so look each demo supplier up by its code.
+    for (const s of DEMO_SUPPLIERS) {
+      const found = await agent.get(`/api/suppliers?search=${encodeURIComponent(s.code)}&pageSize=200`).expect(200);
+      expect(found.body.items.map((r: { code: string }) => r.code)).toContain(s.code);
+    }
   });
 
   it('every demo scheme passes the binning rules against its part limits', () => {

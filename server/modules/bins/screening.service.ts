@@ -419,22 +419,69 @@ interface ReadingRow {
 const toReading = (r: ReadingRow): ScreenedReading => ({ id: String(r.id), position: r.position, hfe25: r.hfe_25, vbeMv25: r.vbe_mv_25, supersedesId: r.supersedes_id === null ? null : String(r.supersedes_id) });
 
 /**
- * POST /api/lots/:id/screening/place: places the lot's current screening readings (and, when
- * asked, its sample readings) that have no place yet, in the order they were recorded.
+ * Places the lot's current screening readings (and, when asked, its sample readings) that have
+ * no place yet, in the order they were recorded, in the caller's transaction. Used after a
+ * tester import in a screening session and by POST /api/lots/:id/screening/place.
  */
+export async function placeUnplacedReadings(
+  m: EntityManager,
+  actor: Pick<SessionUser, 'id' | 'name'>,
+  lotId: number,
+  includeSample = false,
+): Promise<PlaceScreenedResponse> {
+  await lockLot(m, lotId);
+  const rows = (await m.query(
+    `SELECT me.id, me.position, me.hfe_25, me.vbe_mv_25, me.supersedes_id
+       FROM measurement me JOIN measurement_session s ON s.id = me.session_id
+      WHERE me.lot_id = $1 AND NOT me.superseded AND (s.mode = 'screen' OR $2)
+        AND NOT EXISTS (SELECT 1 FROM stock_movement sm WHERE sm.kind = 'screen-in' AND sm.measurement_id = me.id)
+      ORDER BY me.id`,
+    [lotId, includeSample],
+  )) as ReadingRow[];
+  return placeScreenedParts(m, actor, lotId, rows.map(toReading));
+}
+
+/** POST /api/lots/:id/screening/place */
 export async function placeUnplaced(ds: DataSource, actor: SessionUser, lotId: number, includeSample: boolean): Promise<PlaceScreenedResponse> {
-  return ds.transaction(async (m) => {
-    await lockLot(m, lotId);
-    const rows = (await m.query(
-      `SELECT me.id, me.position, me.hfe_25, me.vbe_mv_25, me.supersedes_id
-         FROM measurement me JOIN measurement_session s ON s.id = me.session_id
-        WHERE me.lot_id = $1 AND NOT me.superseded AND (s.mode = 'screen' OR $2)
-          AND NOT EXISTS (SELECT 1 FROM stock_movement sm WHERE sm.kind = 'screen-in' AND sm.measurement_id = me.id)
-        ORDER BY me.id`,
-      [lotId, includeSample],
-    )) as ReadingRow[];
-    return placeScreenedParts(m, actor, lotId, rows.map(toReading));
+  return ds.transaction((m) => placeUnplacedReadings(m, actor, lotId, includeSample));
+}
+
+/**
+ * The bench's hook, called in the transaction that records a reading: a reading of a screening
+ * session — or a correction of a part already placed — gets its bin, container and position.
+ * Returns null for a sample reading.
+ */
+export async function placeRecordedReading(
+  m: EntityManager,
+  actor: Pick<SessionUser, 'id' | 'name'>,
+  session: { lotId: number; mode: string },
+  saved: { id: string; position: number; hfe25: number; vbeMv25: number; supersedesId: string | null },
+): Promise<PartPlacement | null> {
+  let screening = session.mode === 'screen';
+  if (!screening && saved.supersedesId !== null) {
+    const rows = (await m.query(`SELECT 1 FROM stock_movement WHERE kind = 'screen-in' AND measurement_id = $1`, [saved.supersedesId])) as unknown[];
+    screening = rows.length > 0;
+  }
+  if (!screening) return null;
+  return placeScreenedPart(m, actor, session.lotId, {
+    id: String(saved.id),
+    position: saved.position,
+    hfe25: saved.hfe25,
+    vbeMv25: saved.vbeMv25,
+    supersedesId: saved.supersedesId === null ? null : String(saved.supersedesId),
   });
+}
+
+/**
+ * Refuses (409 naming `mode`) to start a screening session on a lot that cannot be binned: its
+ * part type has no gain-bin scheme and none is tied to the lot.
+ */
+export async function assertScreenable(m: EntityManager, lot: { id: number; code: string; partTypeId: number; binSchemeId: number | null }): Promise<void> {
+  if (lot.binSchemeId !== null) return;
+  if (await getCurrentScheme(m, lot.partTypeId)) return;
+  throw AppError.conflict(`Lot ${lot.code} cannot be screened into bins: its part type has no gain-bin scheme yet. A quality engineer adds one in Catalog; until then, measure a sample.`, [
+    { field: 'mode', message: 'no gain-bin scheme for this part type' },
+  ]);
 }
 
 /** PUT /api/lots/:id/screening/setup: how screening opens new containers for the lot. */

@@ -9,6 +9,7 @@ import type { PartType } from '../catalog/part-type.entity.ts';
 import { Lot, type LotStatus } from '../lots/lot.entity.ts';
 import { MeasurementSession } from '../measurements/measurement-session.entity.ts';
 import { advanceForLot } from '../sampling/switching.service.ts';
+import { onLotDisposed } from '../supplier-quality/drift.service.ts';
 import { User } from '../users/user.entity.ts';
 import { Disposition } from './disposition.entity.ts';
 import { computeRecommendation } from './recommendation.service.ts';
@@ -191,6 +192,7 @@ export async function signDisposition(ds: DataSource, actor: SessionUser, lotId:
       after: { ...auditView(d), status: lot.status },
       note: `${input.reason.trim()} | ${switchingNote}`.slice(0, 500),
     });
+    await onLotDisposed(m, lotId); // Suppliers: drift check against the supplier's accepted history.
     return toView(m, lot, d, rec);
   });
 }

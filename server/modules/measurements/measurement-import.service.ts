@@ -10,6 +10,7 @@ import { recordAudit } from '../audit/audit.service.ts';
 import { assertMeasurable, loadLotContext } from '../bench/lot-context.ts';
 import { InstrumentMapping } from './instrument-mapping.entity.ts';
 import { markInspecting, openSessionOf } from './sessions.service.ts';
+import { placeUnplacedReadings } from '../bins/screening.service.ts';
 
 /** Rows listed in a 422 answer; the detail says how many more are bad. */
 const MAX_LISTED_ERRORS = 200;
@@ -257,6 +258,8 @@ export async function importMeasurements(ds: DataSource, actor: SessionUser, lot
       if (count) throw AppError.unprocessable(`${count} rows name positions that are already measured; nothing was imported.`, clashes);
     }
     await bulkInsert(m, { lotId, sessionId: session.id, userId: actor.id }, cols, progress);
+    // Bins: the parts of a screening import are placed into bins in the same transaction.
+    if (session.mode === 'screen') await placeUnplacedReadings(m, actor, lotId);
     await m.upsert(
       InstrumentMapping,
       { instrument: session.instrument, mapping: input.mapping, units: input.units, updatedBy: actor.id, updatedAt: new Date() },

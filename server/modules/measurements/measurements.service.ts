@@ -11,6 +11,7 @@ import type { PartType } from '../catalog/part-type.entity.ts';
 import { Measurement } from './measurement.entity.ts';
 import type { MeasurementSession } from './measurement-session.entity.ts';
 import { markInspecting, openSessionOf } from './sessions.service.ts';
+import { placeRecordedReading } from '../bins/screening.service.ts';
 
 /** Converts and checks a reading; 422 naming each bad field. */
 export function readingOrThrow(raw: RawReading): Reading {
@@ -104,6 +105,8 @@ export async function recordMeasurement(ds: DataSource, actor: SessionUser, lotI
       ]);
     }
     const saved = await insertReading(m, actor, session, partType, input.position, reading);
+    // Bins: in a screening session the part gets its bin, container and position in this transaction.
+    await placeRecordedReading(m, actor, session, saved);
     await markInspecting(m, actor, lot);
     return toRow(saved, { ambient_c: session.ambientC, creator_name: actor.name }, partType);
   });
@@ -130,6 +133,8 @@ export async function correctMeasurement(
     if (old.superseded) throw AppError.conflict(`Measurement ${measurementId} is already superseded; correct the current reading of position ${old.position}.`);
     await m.update(Measurement, { id: old.id }, { superseded: true });
     const saved = await insertReading(m, actor, session, partType, old.position, reading, { supersedesId: old.id, correctionReason: input.reason.trim() });
+    // Bins: a corrected screened part keeps its place or moves to its new bin, in this transaction.
+    await placeRecordedReading(m, actor, session, saved);
     await recordAudit(m, {
       actor,
       action: 'measurement.correct',

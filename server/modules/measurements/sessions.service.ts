@@ -7,6 +7,7 @@ import { assertMeasurable, loadLotContext } from '../bench/lot-context.ts';
 import { Lot } from '../lots/lot.entity.ts';
 import { User } from '../users/user.entity.ts';
 import { MeasurementSession } from './measurement-session.entity.ts';
+import { assertScreenable } from '../bins/screening.service.ts';
 
 export function toSessionRow(s: MeasurementSession, operatorName: string): SessionRow {
   return {
@@ -48,6 +49,7 @@ export async function startSession(ds: DataSource, actor: SessionUser, lotId: nu
   return ds.transaction(async (m) => {
     const { lot } = await loadLotContext(m, lotId, true);
     assertMeasurable(lot);
+    if (input.mode === 'screen') await assertScreenable(m, lot);
     await m.update(MeasurementSession, { lotId, operatorId: actor.id, closedAt: IsNull() }, { closedAt: new Date() });
     const saved = await m.save(
       m.create(MeasurementSession, { lotId, instrument: input.instrument.trim(), ambientC: input.ambientC, mode: input.mode, operatorId: actor.id, closedAt: null }),

@@ -21,8 +21,9 @@ interface LotRow {
 
 /**
  * The drift check of a disposed lot: its sample hFE against the same supplier's accepted earlier
- * lots of the part (received no later than this lot, this lot excluded), with the default
- * thresholds of shared/domain/drift. Raises a drift alert when a check is flagged.
+ * lots of the part (received no later than this lot, this lot excluded, and leaving out lots that
+ * raised an alert themselves — an accepted mixed lot must not become the reference), with the
+ * default thresholds of shared/domain/drift. Raises a drift alert when a check is flagged.
  *
  * Call it inside the transaction that disposes the lot. Idempotent: the drift_check row marks the
  * lot as done (insert … on conflict do nothing), so a second call, or the lazy sweep of
@@ -42,18 +43,26 @@ export async function onLotDisposed(manager: EntityManager, lotId: number): Prom
   const history = (await manager.query(
     `SELECT r.hfe_25, r.lot_id FROM (${SAMPLE_READINGS_SQL}) r
        JOIN lot h ON h.id = r.lot_id
-      WHERE h.supplier_id = $1 AND h.part_type_id = $2 AND h.status = 'accepted' AND h.id <> $3 AND h.received_at <= $4`,
+      WHERE h.supplier_id = $1 AND h.part_type_id = $2 AND h.status = 'accepted' AND h.id <> $3 AND h.received_at <= $4
+        AND NOT EXISTS (SELECT 1 FROM drift_alert a WHERE a.lot_id = h.id)`,
     [lot.supplier_id, lot.part_type_id, lotId, lot.received_at],
   )) as { hfe_25: number; lot_id: number }[];
 
   let result: DriftResult | null = null;
   if (own.length > 0) {
-    result = compareLotWithHistory({
-      lot: own.map((r) => Number(r.hfe_25)),
-      history: history.map((r) => Number(r.hfe_25)),
-      historyLots: new Set(history.map((r) => r.lot_id)).size,
-      limits: { hfeMin: lot.hfe_min, hfeMax: lot.hfe_max },
-    });
+    try {
+      result = compareLotWithHistory({
+        lot: own.map((r) => Number(r.hfe_25)),
+        history: history.map((r) => Number(r.hfe_25)),
+        historyLots: new Set(history.map((r) => r.lot_id)).size,
+        limits: { hfeMin: lot.hfe_min, hfeMax: lot.hfe_max },
+      });
+    } catch (e) {
+      // Never let the check block the disposition it follows: leave the lot unmarked, the lazy
+      // sweep tries again and the error is in the log.
+      console.error(`[binwright] drift check of lot ${lotId} failed`, e);
+      return null;
+    }
   }
   const inserted = (await manager.query(
     `INSERT INTO drift_check (lot_id, alert, result) VALUES ($1, $2, $3) ON CONFLICT (lot_id) DO NOTHING RETURNING lot_id`,

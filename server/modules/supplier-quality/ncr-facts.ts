@@ -1,4 +1,4 @@
-import type { EntityManager } from 'typeorm';
+import type { DataSource, EntityManager } from 'typeorm';
 import { MRB_ACTION_LABELS, type MrbAction } from '../../../shared/api/disposition.ts';
 import type { DriftFigures, DriftFlag } from '../../../shared/api/supplier-quality.ts';
 import { describe } from '../../../shared/domain/statistics/index.ts';
@@ -37,7 +37,7 @@ export interface LotFacts {
   alert: { id: number; flags: DriftFlag[]; figures: DriftFigures } | null;
 }
 
-export async function loadLotFacts(m: EntityManager, lotId: number, alertId: number | null = null): Promise<LotFacts> {
+export async function loadLotFacts(m: DataSource | EntityManager, lotId: number, alertId: number | null = null): Promise<LotFacts> {
   const [row] = (await m.query(
     `SELECT l.id, l.code, l.status, l.quantity, l.purchase_order, l.supplier_part_number, l.supplier_lot, l.date_code, l.country_of_origin, l.received_at,
             s.id AS sid, s.code AS scode, s.name AS sname,

@@ -14,6 +14,7 @@ import {
 import { xbarSChart } from '../../../shared/domain/drift/index.ts';
 import { histogram } from '../../../shared/domain/statistics/index.ts';
 import { AppError } from '../../http/app-error.ts';
+import { sweepDriftChecks } from './drift.service.ts';
 import { FINAL_STATUSES, sampleHfeByLot } from './lot-readings.ts';
 
 /** A certificate of conformance counts as on time when uploaded within this many hours of receipt. */
@@ -160,6 +161,12 @@ export function figuresOf(
   };
 }
 
+/** Figures over all part types of a supplier: a mean hFE across different part types means nothing, so it is left out then. */
+function supplierFigures(lots: LotFact[], current: Parameters<typeof figuresOf>[1]): ScorecardFigures {
+  const f = figuresOf(lots, current);
+  return new Set(lots.map((l) => l.part_type_id)).size > 1 ? { ...f, meanHfe: null, sdOfLotMeans: null } : f;
+}
+
 function sumFor(map: Map<string, number>, supplierId: number): number {
   let n = 0;
   for (const [k, v] of map) if (k.startsWith(`${supplierId}:`)) n += v;
@@ -185,6 +192,7 @@ export interface ScorecardQuery {
 
 /** Every supplier's scorecard over the period, sorted and paged on the server. */
 export async function listScorecards(ds: DataSource, q: ScorecardQuery): Promise<ScorecardPage> {
+  await sweepDriftChecks(ds);
   const suppliers = (await ds.query(`SELECT id, code, name, approval FROM supplier ORDER BY name, id`)) as { id: number; code: string; name: string; approval: string }[];
   const [facts, state] = await Promise.all([lotFacts(ds, q.period), currentState(ds)]);
   const search = q.search?.toLowerCase();
@@ -198,7 +206,7 @@ export async function listScorecards(ds: DataSource, q: ScorecardQuery): Promise
         supplierName: s.name,
         approval: s.approval,
         partTypes: new Set(lots.map((l) => l.part_type_id)).size,
-        ...figuresOf(lots, { severities: severitiesFor(state, s.id), openAlerts: sumFor(state.openAlerts, s.id), openNcrs: sumFor(state.openNcrs, s.id) }),
+        ...supplierFigures(lots, { severities: severitiesFor(state, s.id), openAlerts: sumFor(state.openAlerts, s.id), openNcrs: sumFor(state.openNcrs, s.id) }),
       };
     });
   const sort = q.sort ?? 'supplierName';
@@ -291,6 +299,7 @@ async function partScorecard(ds: DataSource, part: PartScorecard['partType'], lo
 export async function supplierScorecard(ds: DataSource, supplierId: number, period: ScorecardPeriod): Promise<SupplierScorecard> {
   const [supplier] = (await ds.query(`SELECT id, code, name, approval FROM supplier WHERE id = $1`, [supplierId])) as SupplierScorecard['supplier'][];
   if (!supplier) throw AppError.notFound(`Supplier ${supplierId}`);
+  await sweepDriftChecks(ds);
   const [facts, state] = await Promise.all([lotFacts(ds, period, supplierId), currentState(ds, supplierId)]);
   const partIds = [...new Set(facts.map((l) => l.part_type_id))];
   const parts = partIds.length
@@ -304,7 +313,7 @@ export async function supplierScorecard(ds: DataSource, supplierId: number, peri
   return {
     supplier,
     period,
-    totals: figuresOf(facts, { severities: severitiesFor(state, supplierId), openAlerts: sumFor(state.openAlerts, supplierId), openNcrs: sumFor(state.openNcrs, supplierId) }),
+    totals: supplierFigures(facts, { severities: severitiesFor(state, supplierId), openAlerts: sumFor(state.openAlerts, supplierId), openNcrs: sumFor(state.openNcrs, supplierId) }),
     parts: perPart,
   };
 }

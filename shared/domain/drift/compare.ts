@@ -84,7 +84,7 @@ const fmt = (x: number, d = 1) => x.toFixed(d);
  * - Sarle's bimodality coefficient b of the lot (statistics/bimodalityCoefficient), flagged above
  *   settings.bimodality (5/9 by default);
  * - the share of readings outside the part's gain group (hFE limits), flagged above
- *   settings.outsideShare.
+ *   settings.outsideShare when at least settings.minOutsideCount readings are outside.
  * The result carries the figures, the flags and a plain explanation. It never says a lot is
  * counterfeit: the figures are a reason to inspect (reference.md §8), not a finding.
  */
@@ -115,7 +115,7 @@ export function compareLotWithHistory(input: DriftInput): DriftResult {
     const c = Math.sqrt(-Math.log(alpha / 2) / 2);
     ks = { d: k.d, pValue: k.pValue, criticalD: c * Math.sqrt((k.n + k.m) / (k.n * k.m)), alpha };
     if (k.pValue < alpha) {
-      flags.push({ check: 'ks', message: `The gain distribution differs from the history: Kolmogorov–Smirnov D = ${fmt(k.d, 3)}, p = ${k.pValue < 0.0001 ? '< 0.0001' : fmt(k.pValue, 4)} (alert below ${alpha}).` });
+      flags.push({ check: 'ks', message: `The gain distribution differs from the history: Kolmogorov–Smirnov D = ${fmt(k.d, 3)}, p ${k.pValue < 0.0001 ? '< 0.0001' : `= ${fmt(k.pValue, 4)}`} (alert below ${alpha}).` });
     }
     median.history = dh.median;
     median.shift = dl.median - dh.median;
@@ -152,10 +152,10 @@ export function compareLotWithHistory(input: DriftInput): DriftResult {
     if ((hfeMin !== null && x < hfeMin) || (hfeMax !== null && x > hfeMax)) outsideCount++;
   }
   const share = outsideCount / lot.length;
-  if (share > settings.outsideShare) {
+  if (share > settings.outsideShare && outsideCount >= settings.minOutsideCount) {
     flags.push({
       check: 'outside',
-      message: `${pct(share)} of the readings (${outsideCount} of ${lot.length}) lie outside the part's gain group ${hfeMin ?? 'open'}–${hfeMax ?? 'open'} (alert above ${pct(settings.outsideShare)}).`,
+      message: `${pct(share)} of the readings (${outsideCount} of ${lot.length}) lie outside the part's gain group ${hfeMin ?? 'open'}–${hfeMax ?? 'open'} (alert above ${pct(settings.outsideShare)} and ${settings.minOutsideCount} readings).`,
     });
   }
 

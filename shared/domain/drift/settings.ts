@@ -8,7 +8,9 @@ import { DriftInputError } from './errors.ts';
  *   since every disposed lot is tested and false alarms cost inspections);
  * - medianShiftPct 10: the lot median differs from the history median by more than 10 %;
  * - bimodality 5/9: Sarle's b above the value of a uniform distribution (reference.md §7);
- * - outsideShare 0.01: more than 1 % of the readings outside the part's gain group (hFE limits);
+ * - outsideShare 0.01 and minOutsideCount 2: more than 1 % of the readings, and at least two,
+ *   outside the part's gain group (hFE limits) — a single part outside is what the sampling plan
+ *   itself judges;
  * - minLotSize 8 / minHistorySize 30: below these the comparison with the history is not made
  *   (the asymptotic KS p-value is rough for a few dozen parts or fewer);
  * - minBimodalitySize 20: b is too noisy on smaller samples to flag anything.
@@ -19,6 +21,7 @@ export interface DriftSettings {
   bimodality: number;
   /** Fraction 0–1, not percent. */
   outsideShare: number;
+  minOutsideCount: number;
   minLotSize: number;
   minHistorySize: number;
   minBimodalitySize: number;
@@ -29,6 +32,7 @@ export const DEFAULT_DRIFT_SETTINGS: Readonly<DriftSettings> = Object.freeze({
   medianShiftPct: 10,
   bimodality: BIMODALITY_THRESHOLD,
   outsideShare: 0.01,
+  minOutsideCount: 2,
   minLotSize: 8,
   minHistorySize: 30,
   minBimodalitySize: 20,
@@ -44,6 +48,7 @@ export function resolveDriftSettings(partial: Partial<DriftSettings> = {}): Drif
   check('medianShiftPct', s.medianShiftPct > 0 && Number.isFinite(s.medianShiftPct), 'medianShiftPct must be a positive percentage');
   check('bimodality', s.bimodality > 0 && s.bimodality < 1, 'bimodality must lie between 0 and 1');
   check('outsideShare', s.outsideShare >= 0 && s.outsideShare < 1, 'outsideShare is a fraction from 0 to below 1');
+  check('minOutsideCount', Number.isInteger(s.minOutsideCount) && s.minOutsideCount >= 1, 'minOutsideCount must be a whole number ≥ 1');
   for (const k of ['minLotSize', 'minHistorySize', 'minBimodalitySize'] as const) {
     check(k, Number.isInteger(s[k]) && s[k] >= 4, `${k} must be a whole number ≥ 4`);
   }

@@ -5,6 +5,7 @@
  * (1987) 325–340 — Dijkstra from one free row over reduced costs c − u − v, stopped at the first
  * free column, then the duals of the scanned part are moved so the path is tight.
  */
+import { MinHeap } from './min-heap.ts';
 
 /** Row r's arcs are arcCol/arcCost[rowStart[r] … rowStart[r+1]−1]. Costs are integers. */
 export interface SparseAssignment {
@@ -86,10 +87,12 @@ export function solveAssignment(p: SparseAssignment): AssignmentSolution {
       let c = -1;
       let dc = 0;
       while (heap.size > 0) {
-        const top = heap.pop();
-        if (done[top.id] || top.key !== dist[top.id]) continue;
-        c = top.id;
-        dc = top.key;
+        const id = heap.topId;
+        const key = heap.topKey;
+        heap.pop();
+        if (done[id] || key !== dist[id]) continue;
+        c = id;
+        dc = key;
         break;
       }
       if (c < 0) throw new Error('solveAssignment: no perfect assignment exists');
@@ -125,61 +128,4 @@ export function solveAssignment(p: SparseAssignment): AssignmentSolution {
     }
   }
   return { colOf, u, v };
-}
-
-/** Binary min-heap of (key, id) with lazy deletion by the caller. */
-class MinHeap {
-  private keys: number[] = [];
-  private ids: number[] = [];
-
-  get size(): number {
-    return this.keys.length;
-  }
-
-  clear(): void {
-    this.keys.length = 0;
-    this.ids.length = 0;
-  }
-
-  push(key: number, id: number): void {
-    const keys = this.keys;
-    const ids = this.ids;
-    let i = keys.length;
-    keys.push(key);
-    ids.push(id);
-    while (i > 0) {
-      const parent = (i - 1) >> 1;
-      if ((keys[parent] as number) <= key) break;
-      keys[i] = keys[parent] as number;
-      ids[i] = ids[parent] as number;
-      i = parent;
-    }
-    keys[i] = key;
-    ids[i] = id;
-  }
-
-  pop(): { key: number; id: number } {
-    const keys = this.keys;
-    const ids = this.ids;
-    const top = { key: keys[0] as number, id: ids[0] as number };
-    const lastKey = keys.pop() as number;
-    const lastId = ids.pop() as number;
-    const size = keys.length;
-    if (size > 0) {
-      let i = 0;
-      for (;;) {
-        const l = 2 * i + 1;
-        if (l >= size) break;
-        const r = l + 1;
-        const child = r < size && (keys[r] as number) < (keys[l] as number) ? r : l;
-        if ((keys[child] as number) >= lastKey) break;
-        keys[i] = keys[child] as number;
-        ids[i] = ids[child] as number;
-        i = child;
-      }
-      keys[i] = lastKey;
-      ids[i] = lastId;
-    }
-    return top;
-  }
 }

@@ -1,3 +1,5 @@
+import { MinHeap } from './min-heap.ts';
+
 /**
  * Maximum-weight matching on a general graph: Edmonds' blossom algorithm with the primal–dual
  * weight method, O(n³), as described in Z. Galil, "Efficient algorithms for finding maximum
@@ -38,10 +40,24 @@ export interface BlossomStart {
   readonly dual: Float64Array;
 }
 
+/**
+ * Edges the graph does not hold yet, fetched when needed (without maxCardinality). The caller
+ * vouches that every missing edge u–v has slack ≥ 0 as long as dual[u] ≥ level[u] and
+ * dual[v] ≥ level[v] (e.g. level from a lower bound on the weight of u's missing edges). When an
+ * outer vertex's dual falls to its level, fetch(v) returns v's missing edges (other end and
+ * weight, none already in the graph), they are added, and level[v] becomes −Infinity. Then every
+ * missing edge keeps a non-negative slack, so the result is the optimum of the full graph.
+ */
+export interface LazyEdges {
+  readonly level: Float64Array;
+  fetch(v: number): { to: number[]; weight: number[] };
+}
+
 export interface BlossomOptions {
   /** Maximum weight among the matchings of maximum cardinality. */
   readonly maxCardinality?: boolean;
   readonly start?: BlossomStart;
+  readonly lazyEdges?: LazyEdges;
 }
 
 export interface BlossomSolution {
@@ -61,19 +77,44 @@ export interface BlossomSolution {
  * weights every dual value stays an integer and the result is exact. Weights have no unit.
  */
 export function solveMaxWeightMatching(graph: BlossomGraph, options: BlossomOptions = {}): BlossomSolution {
-  return new BlossomSolver(graph, options.maxCardinality === true, options.start).run();
+  return new BlossomSolver(graph, options.maxCardinality === true, options.start, options.lazyEdges).run();
 }
 
-/** The state of one run; one method per step of the formulation, so each stays small and fast. */
+const KIND_VERTEX = 0; // δ1: an outer vertex's dual reaches 0
+const KIND_EDGE = 1; // δ2 / δ3: an edge from an outer vertex becomes tight
+const KIND_BLOSSOM = 2; // δ4: an inner blossom's dual reaches 0
+const KIND_LEVEL = 3; // an outer vertex's dual reaches its lazy-edge level
+
+/**
+ * The state of one run; one method per step of the formulation. Three refinements, none of
+ * which changes what a step does:
+ * - Dual changes are applied lazily, as in the O(nm log n) versions of the algorithm (Galil,
+ *   Micali & Gabow, SIAM J. Comput. 15 (1986) 120–130): `now` is the total dual change so far, a
+ *   vertex's dual is dualVar[v] ∓ (now − timeRef[v]) while its top-level blossom is S (−) or
+ *   T (+) (a blossom's: ± (now − labelTime[b])), and the next δ comes from a heap of the times at
+ *   which each candidate event happens (an outer vertex's dual reaching 0, an edge becoming
+ *   tight, an inner blossom's dual reaching 0). Stored values are brought up to date whenever a
+ *   vertex's rate changes; an outer blossom absorbed into a new outer blossom keeps its rate, so
+ *   forming a blossom touches only its inner parts, and its vertices find their new top-level
+ *   blossom through the parent links (cached).
+ * - The alternating forest is kept across augmentations: only the trees whose roots were just
+ *   matched are taken apart (the formulation restarts every tree each stage). The other trees are
+ *   still alternating trees of tight edges rooted at free vertices, which is all a stage needs.
+ * - Inner blossoms remember no per-vertex labels; when one is expanded, a child off the new path
+ *   is labelled T if a tight edge joins it to an outer vertex, which is what those labels recorded.
+ */
 class BlossomSolver {
   private readonly n: number;
-  private readonly ei: Int32Array;
-  private readonly ej: Int32Array;
-  private readonly wt: Float64Array;
-  private readonly endpoint: Int32Array;
-  private readonly nbStart: Int32Array;
-  private readonly nbList: Int32Array;
+  private ei: Int32Array;
+  private ej: Int32Array;
+  private wt: Float64Array;
+  private endpoint: Int32Array;
+  private m: number;
+  /** Per vertex: endpoint indices p of its edges (the other end is endpoint[p]). */
+  private readonly adj: number[][];
+  private readonly level: Float64Array | null;
   private readonly mate: Int32Array;
+  /** Top-level blossoms only: 0 free of the forest, 1 outer (S), 2 inner (T); others stay 0. */
   private readonly label: Int8Array;
   private readonly labelEnd: Int32Array;
   private readonly inBlossom: Int32Array;
@@ -81,57 +122,49 @@ class BlossomSolver {
   private readonly blossomChilds: (number[] | null)[];
   private readonly blossomBase: Int32Array;
   private readonly blossomEndps: (number[] | null)[];
-  private readonly bestEdge: Int32Array;
-  private readonly blossomBestEdges: (number[] | null)[];
   private readonly unusedBlossoms: number[] = [];
   private readonly dualVar: Float64Array;
-  private readonly allowEdge: Uint8Array;
+  /** z-clock start of each labelled top-level blossom. */
+  private readonly labelTime: Float64Array;
+  /** Time since which each vertex's dual has moved at the rate its top-level label gives. */
+  private readonly timeRef: Float64Array;
+  private allowEdge: Uint8Array;
   private readonly queue: number[] = [];
-  // Per-stage bookkeeping: what was set this stage, so the reset and the scans touch only that.
-  private stage = 0;
-  private readonly labelMark: Int32Array;
-  private readonly labelled: number[] = [];
-  private readonly bestMark: Int32Array;
-  private readonly bestSet: number[] = [];
-  private readonly allowed: number[] = [];
-  private readonly bbeSet: number[] = [];
-  private readonly bestEdgeTo: Int32Array;
-  private readonly scratch: number[] = [];
-  private free: number[] = [];
+  private readonly events = new MinHeap();
+  private now = 0;
+  /** Root vertex of the tree each labelled top-level blossom belongs to. */
+  private readonly treeOf: Int32Array;
+  /** Top-level blossoms labelled in each tree (by root; may hold stale entries). */
+  private readonly treeTops: (number[] | null)[];
+  private liveTrees = 0;
+  private readonly visitMark: Int32Array;
+  private visit = 0;
 
   constructor(
     graph: BlossomGraph,
     private readonly maxCardinality: boolean,
     start: BlossomStart | undefined,
+    private readonly lazy: LazyEdges | undefined,
   ) {
     const n = graph.nVertex;
     const ei = graph.edgeI;
     const ej = graph.edgeJ;
     const m = ei.length;
     this.n = n;
-    this.ei = ei;
-    this.ej = ej;
-    this.wt = graph.weight;
-    const endpoint = new Int32Array(2 * m);
-    const nbStart = new Int32Array(n + 1);
+    this.m = m;
+    this.ei = ei.slice();
+    this.ej = ej.slice();
+    this.wt = graph.weight.slice();
+    this.endpoint = new Int32Array(2 * m);
+    this.adj = [];
+    for (let v = 0; v < n; v++) this.adj.push([]);
     for (let k = 0; k < m; k++) {
-      endpoint[2 * k] = ei[k] as number;
-      endpoint[2 * k + 1] = ej[k] as number;
-      nbStart[(ei[k] as number) + 1]++;
-      nbStart[(ej[k] as number) + 1]++;
+      this.endpoint[2 * k] = ei[k] as number;
+      this.endpoint[2 * k + 1] = ej[k] as number;
+      (this.adj[ei[k] as number] as number[]).push(2 * k + 1);
+      (this.adj[ej[k] as number] as number[]).push(2 * k);
     }
-    for (let v = 0; v < n; v++) nbStart[v + 1] = (nbStart[v + 1] as number) + (nbStart[v] as number);
-    const nbList = new Int32Array(2 * m);
-    const fill = nbStart.slice(0, n);
-    for (let k = 0; k < m; k++) {
-      const i = ei[k] as number;
-      const j = ej[k] as number;
-      nbList[fill[i]++ as number] = 2 * k + 1;
-      nbList[fill[j]++ as number] = 2 * k;
-    }
-    this.endpoint = endpoint;
-    this.nbStart = nbStart;
-    this.nbList = nbList;
+    this.level = lazy ? lazy.level.slice() : null;
 
     this.mate = new Int32Array(n).fill(-1);
     this.label = new Int8Array(2 * n);
@@ -143,14 +176,14 @@ class BlossomSolver {
     this.blossomBase = new Int32Array(2 * n).fill(-1);
     for (let v = 0; v < n; v++) this.blossomBase[v] = v;
     this.blossomEndps = new Array<number[] | null>(2 * n).fill(null);
-    this.bestEdge = new Int32Array(2 * n).fill(-1);
-    this.blossomBestEdges = new Array<number[] | null>(2 * n).fill(null);
     for (let b = 2 * n - 1; b >= n; b--) this.unusedBlossoms.push(b);
     this.dualVar = new Float64Array(2 * n);
+    this.labelTime = new Float64Array(2 * n);
+    this.timeRef = new Float64Array(n);
     this.allowEdge = new Uint8Array(m);
-    this.labelMark = new Int32Array(2 * n).fill(-1);
-    this.bestMark = new Int32Array(2 * n).fill(-1);
-    this.bestEdgeTo = new Int32Array(2 * n).fill(-1);
+    this.treeOf = new Int32Array(2 * n).fill(-1);
+    this.treeTops = new Array<number[] | null>(n).fill(null);
+    this.visitMark = new Int32Array(2 * n);
 
     if (start) {
       for (let v = 0; v < n; v++) {
@@ -163,34 +196,81 @@ class BlossomSolver {
       for (let k = 0; k < m; k++) if ((this.wt[k] as number) > maxWeight) maxWeight = this.wt[k] as number;
       for (let v = 0; v < n; v++) this.dualVar[v] = maxWeight;
     }
-    for (let v = 0; v < n; v++) if (this.mate[v] === -1) this.free.push(v);
   }
 
-  private setLabel(x: number, t: number): void {
-    this.label[x] = t;
-    if (this.labelMark[x] !== this.stage) {
-      this.labelMark[x] = this.stage;
-      this.labelled.push(x);
+  /**
+   * Top-level blossom containing vertex v. inBlossom[v] may point to any blossom that still
+   * contains v (forming a blossom does not touch its leaves); the climb is cached.
+   */
+  private top(v: number): number {
+    let b = this.inBlossom[v] as number;
+    if (this.blossomParent[b] === -1) return b;
+    while (this.blossomParent[b] !== -1) b = this.blossomParent[b] as number;
+    this.inBlossom[v] = b;
+    return b;
+  }
+
+  /** Current dual of vertex v. */
+  private vDual(v: number): number {
+    const l = this.label[this.top(v)];
+    const base = this.dualVar[v] as number;
+    if (l === 1) return base - (this.now - (this.timeRef[v] as number));
+    if (l === 2) return base + (this.now - (this.timeRef[v] as number));
+    return base;
+  }
+
+  /** Current dual of top-level blossom b (b ≥ n). */
+  private zDual(b: number): number {
+    const l = this.label[b];
+    const base = this.dualVar[b] as number;
+    if (l === 1) return base + (this.now - (this.labelTime[b] as number));
+    if (l === 2) return base - (this.now - (this.labelTime[b] as number));
+    return base;
+  }
+
+  /** Stores the current duals of top-level b and its leaves (before b stops being top-level or labelled). */
+  private settle(b: number): void {
+    for (const v of this.leaves(b, [])) {
+      this.dualVar[v] = this.vDual(v);
+      this.timeRef[v] = this.now;
     }
-  }
-
-  private setBest(x: number, k: number): void {
-    this.bestEdge[x] = k;
-    if (this.bestMark[x] !== this.stage) {
-      this.bestMark[x] = this.stage;
-      this.bestSet.push(x);
+    if (b >= this.n) {
+      this.dualVar[b] = this.zDual(b);
+      this.labelTime[b] = this.now;
     }
   }
 
   private allow(k: number): void {
-    if (this.allowEdge[k] === 0) {
-      this.allowEdge[k] = 1;
-      this.allowed.push(k);
+    this.allowEdge[k] = 1;
+  }
+
+  private addEdge(i: number, j: number, w: number): number {
+    const k = this.m++;
+    if (k >= this.ei.length) {
+      const cap = Math.max(16, 2 * this.ei.length);
+      const grow = <T extends Int32Array | Float64Array | Uint8Array>(a: T, size: number): T => {
+        const b = new (a.constructor as new (len: number) => T)(size);
+        b.set(a);
+        return b;
+      };
+      this.ei = grow(this.ei, cap);
+      this.ej = grow(this.ej, cap);
+      this.wt = grow(this.wt, cap);
+      this.allowEdge = grow(this.allowEdge, cap);
+      this.endpoint = grow(this.endpoint, 2 * cap);
     }
+    this.ei[k] = i;
+    this.ej[k] = j;
+    this.wt[k] = w;
+    this.endpoint[2 * k] = i;
+    this.endpoint[2 * k + 1] = j;
+    (this.adj[i] as number[]).push(2 * k + 1);
+    (this.adj[j] as number[]).push(2 * k);
+    return k;
   }
 
   private slack(k: number): number {
-    return (this.dualVar[this.ei[k] as number] as number) + (this.dualVar[this.ej[k] as number] as number) - 2 * (this.wt[k] as number);
+    return this.vDual(this.ei[k] as number) + this.vDual(this.ej[k] as number) - 2 * (this.wt[k] as number);
   }
 
   /** Appends the leaves (vertices) of blossom b to out, depth first in child order. */
@@ -212,17 +292,41 @@ class BlossomSolver {
     return out;
   }
 
+  /** Labels top-level b with t in tree `root` and starts the clock of its blossom dual. */
+  private setTopLabel(b: number, t: number, root: number): void {
+    this.label[b] = t;
+    this.labelTime[b] = this.now;
+    this.treeOf[b] = root;
+    (this.treeTops[root] as number[]).push(b);
+  }
+
+  /** Queues S-vertex v for scanning and, without maxCardinality, the time its dual reaches 0. */
+  private becameOuter(v: number): void {
+    this.queue.push(v);
+    if (!this.maxCardinality) this.events.push(this.now + this.vDual(v), 4 * v + KIND_VERTEX);
+    const level = this.level;
+    if (level !== null && (level[v] as number) > -Infinity) {
+      this.events.push(this.now + this.vDual(v) - (level[v] as number), 4 * v + KIND_LEVEL);
+    }
+  }
+
   private assignLabel(w: number, t: number, p: number): void {
-    const b = this.inBlossom[w] as number;
-    this.setLabel(w, t);
-    this.setLabel(b, t);
+    const b = this.top(w);
+    const root = p === -1 ? w : (this.treeOf[this.top(this.endpoint[p] as number)] as number);
+    if (p === -1) {
+      this.treeTops[w] = [];
+      this.liveTrees++;
+    }
+    // b was unlabelled, so its duals did not move: starting the clocks needs no settling.
+    this.setTopLabel(b, t, root);
     this.labelEnd[w] = p;
     this.labelEnd[b] = p;
-    this.bestEdge[w] = -1;
-    this.bestEdge[b] = -1;
+    const lv = this.leaves(b, []);
+    for (const v of lv) this.timeRef[v] = this.now;
     if (t === 1) {
-      this.leaves(b, this.queue);
+      for (const v of lv) this.becameOuter(v);
     } else {
+      if (b >= this.n) this.events.push(this.now + (this.dualVar[b] as number), 4 * b + KIND_BLOSSOM);
       const mb = this.mate[this.blossomBase[b] as number] as number;
       this.assignLabel(this.endpoint[mb] as number, 1, mb ^ 1);
     }
@@ -230,13 +334,13 @@ class BlossomSolver {
 
   /** Traces back from v and w to find a new blossom (returns its base) or an augmenting path (−1). */
   private scanBlossom(v0: number, w0: number): number {
-    const { inBlossom, label, labelEnd, endpoint } = this;
+    const { label, labelEnd, endpoint } = this;
     let v = v0;
     let w = w0;
     const path: number[] = [];
     let base = -1;
     while (v !== -1 || w !== -1) {
-      let b = inBlossom[v] as number;
+      let b = this.top(v);
       if ((label[b] as number) & 4) {
         base = this.blossomBase[b] as number;
         break;
@@ -247,7 +351,7 @@ class BlossomSolver {
         v = -1;
       } else {
         v = endpoint[labelEnd[b] as number] as number;
-        b = inBlossom[v] as number;
+        b = this.top(v);
         v = endpoint[labelEnd[b] as number] as number;
       }
       if (w !== -1) {
@@ -261,95 +365,68 @@ class BlossomSolver {
   }
 
   private addBlossom(base: number, k: number): void {
-    const { inBlossom, labelEnd, endpoint, blossomParent } = this;
+    const { labelEnd, endpoint, blossomParent } = this;
     let v = this.ei[k] as number;
     let w = this.ej[k] as number;
-    const bb = inBlossom[base] as number;
-    let bv = inBlossom[v] as number;
-    let bw = inBlossom[w] as number;
+    const bb = this.top(base);
+    let bv = this.top(v);
+    let bw = this.top(w);
     const b = this.unusedBlossoms.pop() as number;
     this.blossomBase[b] = base;
-    blossomParent[b] = -1;
-    blossomParent[bb] = b;
     const path: number[] = [];
     const endps: number[] = [];
     while (bv !== bb) {
-      blossomParent[bv] = b;
       path.push(bv);
       endps.push(labelEnd[bv] as number);
       v = endpoint[labelEnd[bv] as number] as number;
-      bv = inBlossom[v] as number;
+      bv = this.top(v);
     }
     path.push(bb);
     path.reverse();
     endps.reverse();
     endps.push(2 * k);
     while (bw !== bb) {
-      blossomParent[bw] = b;
       path.push(bw);
       endps.push((labelEnd[bw] as number) ^ 1);
       w = endpoint[labelEnd[bw] as number] as number;
-      bw = inBlossom[w] as number;
+      bw = this.top(w);
     }
+    // The sub-blossoms stop being top-level. Outer ones keep their vertices' dual clocks (the
+    // rate stays −1); inner ones are settled, and their vertices become outer.
+    const wasInner: number[] = [];
+    const root = this.treeOf[bb] as number;
+    for (const sub of path) {
+      if (this.label[sub] === 2) {
+        this.settle(sub);
+        this.leaves(sub, wasInner);
+      } else if (sub >= this.n) {
+        this.dualVar[sub] = this.zDual(sub);
+      }
+      blossomParent[sub] = b;
+    }
+    blossomParent[b] = -1;
     this.blossomChilds[b] = path;
     this.blossomEndps[b] = endps;
-    this.setLabel(b, 1);
+    this.setTopLabel(b, 1, root);
     labelEnd[b] = labelEnd[bb] as number;
     this.dualVar[b] = 0;
-    for (const x of this.leaves(b, [])) {
-      if (this.label[inBlossom[x] as number] === 2) this.queue.push(x);
-      inBlossom[x] = b;
-    }
-    // Least-slack edge from the new blossom to each other S-blossom.
-    const touched: number[] = [];
-    for (const sub of path) {
-      const own = this.blossomBestEdges[sub];
-      if (own === null || own === undefined) {
-        for (const x of this.leaves(sub, [])) {
-          const end = this.nbStart[x + 1] as number;
-          for (let a = this.nbStart[x] as number; a < end; a++) this.considerBest(b, (this.nbList[a] as number) >> 1, touched);
-        }
-      } else {
-        for (const k2 of own) this.considerBest(b, k2, touched);
-      }
-      this.blossomBestEdges[sub] = null;
-      this.bestEdge[sub] = -1;
-    }
-    touched.sort((x, y) => x - y);
-    const be: number[] = [];
-    for (const bj of touched) {
-      be.push(this.bestEdgeTo[bj] as number);
-      this.bestEdgeTo[bj] = -1;
-    }
-    this.blossomBestEdges[b] = be;
-    this.bbeSet.push(b);
-    this.bestEdge[b] = -1;
-    for (const k2 of be) {
-      if (this.bestEdge[b] === -1 || this.slack(k2) < this.slack(this.bestEdge[b] as number)) this.setBest(b, k2);
-    }
+    for (const x of wasInner) this.becameOuter(x);
   }
 
-  private considerBest(b: number, k2: number, touched: number[]): void {
-    let j = this.ej[k2] as number;
-    if (this.inBlossom[j] === b) j = this.ei[k2] as number;
-    const bj = this.inBlossom[j] as number;
-    if (bj !== b && this.label[bj] === 1) {
-      const cur = this.bestEdgeTo[bj] as number;
-      if (cur === -1) {
-        touched.push(bj);
-        this.bestEdgeTo[bj] = k2;
-      } else if (this.slack(k2) < this.slack(cur)) {
-        this.bestEdgeTo[bj] = k2;
-      }
-    }
-  }
-
+  /**
+   * Expands top-level blossom b. endStage: b is unlabelled (its tree was taken apart) and
+   * children with dual 0 are expanded too; otherwise b is an inner blossom whose dual reached 0,
+   * and its children are relabelled along the even path as in the formulation.
+   */
   private expandBlossom(b: number, endStage: boolean): void {
     const { inBlossom, label, labelEnd, endpoint } = this;
     const n = this.n;
+    if (!endStage) this.settle(b);
     const childs = this.blossomChilds[b] as number[];
     for (const s of childs) {
       this.blossomParent[s] = -1;
+      label[s] = 0;
+      this.labelTime[s] = this.now;
       if (s < n) {
         inBlossom[s] = s;
       } else if (endStage && this.dualVar[s] === 0) {
@@ -359,8 +436,9 @@ class BlossomSolver {
       }
     }
     if (!endStage && label[b] === 2) {
+      const root = this.treeOf[b] as number;
       const endps = this.blossomEndps[b] as number[];
-      const entryChild = inBlossom[endpoint[(labelEnd[b] as number) ^ 1] as number] as number;
+      const entryChild = this.top(endpoint[(labelEnd[b] as number) ^ 1] as number);
       let j = childs.indexOf(entryChild);
       let jStep: number;
       let endpTrick: number;
@@ -374,8 +452,6 @@ class BlossomSolver {
       }
       let p = labelEnd[b] as number;
       while (j !== 0) {
-        this.setLabel(endpoint[p ^ 1] as number, 0);
-        this.setLabel(endpoint[at(endps, j - endpTrick) ^ endpTrick ^ 1] as number, 0);
         this.assignLabel(endpoint[p ^ 1] as number, 2, p);
         this.allow(at(endps, j - endpTrick) >> 1);
         j += jStep;
@@ -384,39 +460,48 @@ class BlossomSolver {
         j += jStep;
       }
       const bv0 = at(childs, j);
-      this.setLabel(endpoint[p ^ 1] as number, 2);
-      this.setLabel(bv0, 2);
+      this.setTopLabel(bv0, 2, root);
+      if (bv0 >= n) this.events.push(this.now + (this.dualVar[bv0] as number), 4 * bv0 + KIND_BLOSSOM);
       labelEnd[endpoint[p ^ 1] as number] = p;
       labelEnd[bv0] = p;
-      this.bestEdge[bv0] = -1;
       j += jStep;
       while (at(childs, j) !== entryChild) {
         const bv = at(childs, j);
-        if (label[bv] === 1) {
-          j += jStep;
-          continue;
-        }
-        let v = -1;
-        for (const x of this.leaves(bv, [])) {
-          v = x;
-          if (label[x] !== 0) break;
-        }
-        if (v >= 0 && label[v] !== 0) {
-          this.setLabel(v, 0);
-          this.setLabel(endpoint[this.mate[this.blossomBase[bv] as number] as number] as number, 0);
-          this.assignLabel(v, 2, labelEnd[v] as number);
-        }
+        if (label[bv] === 0) this.labelFromOuter(bv);
         j += jStep;
       }
+      // Children left unlabelled: their edges to S-vertices become δ2 candidates again.
+      for (const c of childs) {
+        if (label[c] !== 0) continue;
+        for (const x of this.leaves(c, [])) {
+          for (const p2 of this.adj[x] as number[]) {
+            if (label[this.top(endpoint[p2] as number)] === 1) this.edgeEvent(p2 >> 1);
+          }
+        }
+      }
     }
-    this.setLabel(b, -1);
+    label[b] = 0;
     labelEnd[b] = -1;
+    this.treeOf[b] = -1;
     this.blossomChilds[b] = null;
     this.blossomEndps[b] = null;
     this.blossomBase[b] = -1;
-    this.blossomBestEdges[b] = null;
-    this.bestEdge[b] = -1;
     this.unusedBlossoms.push(b);
+  }
+
+  /** Labels unlabelled top-level bv as T when a tight edge joins one of its leaves to an S-vertex. */
+  private labelFromOuter(bv: number): void {
+    const { endpoint, label } = this;
+    for (const x of this.leaves(bv, [])) {
+      for (const p of this.adj[x] as number[]) {
+        const bu = this.top(endpoint[p] as number);
+        if (bu !== bv && label[bu] === 1 && this.slack(p >> 1) === 0) {
+          this.allow(p >> 1);
+          this.assignLabel(x, 2, p);
+          return;
+        }
+      }
+    }
   }
 
   /** Swaps matched and unmatched edges on the even path from vertex v to the base of blossom b. */
@@ -462,16 +547,16 @@ class BlossomSolver {
    * endpoint p (p = −1 leaves s free). Both halves of an augmentation use it.
    */
   private flipToRoot(s0: number, p0: number): void {
-    const { inBlossom, labelEnd, endpoint, mate } = this;
+    const { labelEnd, endpoint, mate } = this;
     let s = s0;
     let p = p0;
     for (;;) {
-      const bs = inBlossom[s] as number;
+      const bs = this.top(s);
       if (bs >= this.n) this.augmentBlossom(bs, s);
       mate[s] = p;
       if (labelEnd[bs] === -1) break;
       const t = endpoint[labelEnd[bs] as number] as number;
-      const bt = inBlossom[t] as number;
+      const bt = this.top(t);
       s = endpoint[labelEnd[bt] as number] as number;
       const j = endpoint[(labelEnd[bt] as number) ^ 1] as number;
       if (bt >= this.n) this.augmentBlossom(bt, j);
@@ -480,235 +565,230 @@ class BlossomSolver {
     }
   }
 
+  /**
+   * Takes the tree rooted at `root` apart: its blossoms become unlabelled (duals stored, S-blossoms
+   * with dual 0 expanded as at the end of a stage), and its vertices' edges to the remaining outer
+   * vertices become δ2 candidates.
+   */
+  private dissolveTree(root: number): void {
+    const list = this.treeTops[root];
+    if (list === null || list === undefined) return;
+    this.treeTops[root] = null;
+    this.liveTrees--;
+    const stamp = ++this.visit;
+    const tops: number[] = [];
+    for (const x of list) {
+      if (this.visitMark[x] === stamp) continue;
+      this.visitMark[x] = stamp;
+      if (this.blossomParent[x] !== -1 || this.treeOf[x] !== root || this.label[x] === 0) continue;
+      if (x >= this.n && (this.blossomBase[x] as number) < 0) continue;
+      tops.push(x);
+    }
+    const wasOuterZero: number[] = [];
+    for (const x of tops) {
+      const outer = this.label[x] === 1;
+      this.settle(x);
+      this.label[x] = 0;
+      this.labelEnd[x] = -1;
+      this.treeOf[x] = -1;
+      if (outer && x >= this.n && this.dualVar[x] === 0) wasOuterZero.push(x);
+    }
+    const vertices: number[] = [];
+    for (const x of tops) this.leaves(x, vertices);
+    for (const b of wasOuterZero) this.expandBlossom(b, true);
+    const { endpoint, label } = this;
+    for (const x of vertices) {
+      for (const p of this.adj[x] as number[]) {
+        this.allowEdge[p >> 1] = 0;
+        if (label[this.top(endpoint[p] as number)] === 1) this.edgeEvent(p >> 1);
+      }
+    }
+  }
+
   /** Swaps matched and unmatched edges along the augmenting path through edge k. */
   private augmentMatching(k: number): void {
+    const ti = this.treeOf[this.top(this.ei[k] as number)] as number;
+    const tj = this.treeOf[this.top(this.ej[k] as number)] as number;
     this.flipToRoot(this.ei[k] as number, 2 * k + 1);
     this.flipToRoot(this.ej[k] as number, 2 * k);
+    this.dissolveTree(ti);
+    if (tj !== ti) this.dissolveTree(tj);
   }
 
-  private minVertexDual(): number {
-    let d = Infinity;
-    for (let v = 0; v < this.n; v++) if ((this.dualVar[v] as number) < d) d = this.dualVar[v] as number;
-    return d;
-  }
-
-  /** Resets what the last stage set and labels the root(s); false when no root is left. */
-  private startStage(): boolean {
-    this.stage++;
-    for (const x of this.labelled) this.label[x] = 0;
-    this.labelled.length = 0;
-    for (const x of this.bestSet) this.bestEdge[x] = -1;
-    this.bestSet.length = 0;
-    for (const k of this.allowed) this.allowEdge[k] = 0;
-    this.allowed.length = 0;
-    for (const b of this.bbeSet) this.blossomBestEdges[b] = null;
-    this.bbeSet.length = 0;
-    this.queue.length = 0;
-
-    const stillFree: number[] = [];
-    for (const v of this.free) {
-      if (this.mate[v] !== -1) continue;
-      // Without maxCardinality a free vertex with dual 0 already satisfies complementary
-      // slackness; it is no root, but a tree may still end at it.
-      if (!this.maxCardinality && this.dualVar[v] === 0) continue;
-      stillFree.push(v);
-      if (this.label[this.inBlossom[v] as number] === 0) this.assignLabel(v, 1, -1);
-    }
-    this.free = stillFree;
-    return this.maxCardinality || stillFree.length > 0;
+  /**
+   * Records when edge k (not tight, at least one end outer) becomes tight: S–S edges close at
+   * rate 2 (δ3), S–free edges at rate 1 (δ2); S–T edges keep their slack and are not recorded.
+   */
+  private edgeEvent(k: number): void {
+    const bi = this.top(this.ei[k] as number);
+    const bj = this.top(this.ej[k] as number);
+    if (bi === bj) return;
+    const li = this.label[bi];
+    const lj = this.label[bj];
+    if (li === 1 && lj === 1) this.events.push(this.now + this.slack(k) / 2, 4 * k + KIND_EDGE);
+    else if ((li === 1 && lj === 0) || (li === 0 && lj === 1)) this.events.push(this.now + this.slack(k), 4 * k + KIND_EDGE);
   }
 
   /** Follows tight edges from the queued S-vertices; true when the matching was augmented. */
   private scanQueue(): boolean {
-    const { inBlossom, label, labelEnd, endpoint, allowEdge, bestEdge, nbStart, nbList, queue } = this;
+    const { queue, label } = this;
     while (queue.length > 0) {
       const v = queue.pop() as number;
-      const end = nbStart[v + 1] as number;
-      for (let a = nbStart[v] as number; a < end; a++) {
-        const p = nbList[a] as number;
+      if (label[this.top(v)] !== 1) continue;
+      const list = this.adj[v] as number[];
+      for (let a = 0; a < list.length; a++) {
+        const p = list[a] as number;
         const k = p >> 1;
-        const w = endpoint[p] as number;
-        if (inBlossom[v] === inBlossom[w]) continue;
-        let kSlack = 0;
-        if (allowEdge[k] === 0) {
-          kSlack = this.slack(k);
-          if (kSlack <= 0) this.allow(k);
-        }
-        if (allowEdge[k] === 1) {
-          const bw = inBlossom[w] as number;
-          const lw = label[bw];
-          if (lw === 0) {
-            if (this.mate[this.blossomBase[bw] as number] === -1) {
-              // A free vertex that is no root (dual 0): the other end of an augmenting path.
-              this.setLabel(bw, 1);
-              labelEnd[bw] = -1;
-              this.augmentMatching(k);
-              return true;
-            }
-            this.assignLabel(w, 2, p ^ 1);
-          } else if (lw === 1) {
-            const base = this.scanBlossom(v, w);
-            if (base >= 0) {
-              this.addBlossom(base, k);
-            } else {
-              this.augmentMatching(k);
-              return true;
-            }
-          } else if (label[w] === 0) {
-            this.setLabel(w, 2);
-            labelEnd[w] = p ^ 1;
+        if (this.top(v) === this.top(this.endpoint[p] as number)) continue;
+        if (this.allowEdge[k] === 0) {
+          if (this.slack(k) > 0) {
+            this.edgeEvent(k);
+            continue;
           }
-        } else if (label[inBlossom[w] as number] === 1) {
-          const b = inBlossom[v] as number;
-          if (bestEdge[b] === -1 || kSlack < this.slack(bestEdge[b] as number)) this.setBest(b, k);
-        } else if (label[w] === 0) {
-          if (bestEdge[w] === -1 || kSlack < this.slack(bestEdge[w] as number)) this.setBest(w, k);
+          this.allow(k);
         }
+        if (this.useTightEdge(v, p)) return true;
       }
     }
     return false;
   }
 
-  /** Adds delta to the duals of the labelled top-level blossoms (S: −, T: + for vertices). */
-  private applyDelta(delta: number): void {
-    const n = this.n;
-    const scratch = this.scratch;
-    for (const x of this.labelled) {
-      if (this.blossomParent[x] !== -1) continue;
-      if (x >= n && (this.blossomBase[x] as number) < 0) continue;
-      const lx = this.label[x];
-      if (lx !== 1 && lx !== 2) continue;
-      const d = lx === 1 ? -delta : delta;
-      if (x < n) {
-        this.dualVar[x] = (this.dualVar[x] as number) + d;
-      } else {
-        scratch.length = 0;
-        for (const v of this.leaves(x, scratch)) this.dualVar[v] = (this.dualVar[v] as number) + d;
-        this.dualVar[x] = (this.dualVar[x] as number) - d;
+  /**
+   * Tight edge from S-vertex v to w = endpoint[p]: label w's blossom T (and its mate S), close a
+   * blossom, or augment (returns true).
+   */
+  private useTightEdge(v: number, p: number): boolean {
+    const { label, labelEnd } = this;
+    const k = p >> 1;
+    const w = this.endpoint[p] as number;
+    const bw = this.top(w);
+    const lw = label[bw];
+    if (lw === 0) {
+      const base = this.blossomBase[bw] as number;
+      if (this.mate[base] === -1) {
+        // A free vertex that is no root (dual 0): the other end of an augmenting path.
+        this.treeTops[base] = [];
+        this.liveTrees++;
+        this.setTopLabel(bw, 1, base);
+        for (const x of this.leaves(bw, [])) this.timeRef[x] = this.now;
+        labelEnd[bw] = -1;
+        this.augmentMatching(k);
+        return true;
       }
+      this.assignLabel(w, 2, p ^ 1);
+    } else if (lw === 1) {
+      const base = this.scanBlossom(v, w);
+      if (base < 0) {
+        this.augmentMatching(k);
+        return true;
+      }
+      this.addBlossom(base, k);
     }
+    return false;
   }
 
   /**
-   * One dual step (Galil's δ1…δ4). Returns true when the stage is over: by a "δ1" event
-   * (single tree: an outer vertex reached dual 0 and was released; forest: optimum reached).
+   * One dual step (Galil's δ1…δ4): the earliest valid event decides δ. 'changed' when the matching
+   * changed (an augmentation, or an outer vertex released at dual 0), 'stop' when no step is possible.
    */
-  private dualStep(): 'continue' | 'stop' | 'released' {
-    const n = this.n;
-    const { label, inBlossom, bestEdge, blossomParent, dualVar } = this;
-    let deltaType = -1;
-    let delta = 0;
-    let deltaEdge = -1;
-    let deltaBlossom = -1;
-    let zeroVertex = -1;
-    if (!this.maxCardinality) {
-      // Smallest dual among the outer (S) vertices; the classic form takes the minimum over all
-      // vertices, which is the same when every free vertex starts with the same dual.
-      deltaType = 1;
-      delta = Infinity;
-      const lv = this.scratch;
-      for (const x of this.labelled) {
-        if (blossomParent[x] !== -1 || label[x] !== 1) continue;
-        if (x >= n && (this.blossomBase[x] as number) < 0) continue;
-        lv.length = 0;
-        for (const v of this.leaves(x, lv)) {
-          if ((dualVar[v] as number) < delta) {
-            delta = dualVar[v] as number;
-            zeroVertex = v;
-          }
-        }
+  private dualStep(): 'continue' | 'stop' | 'changed' {
+    const events = this.events;
+    const { label } = this;
+    while (events.size > 0) {
+      const time = events.topKey;
+      const id = events.topId;
+      events.pop();
+      const kind = id & 3;
+      const x = id >> 2;
+      let due: number;
+      if (kind === KIND_VERTEX) {
+        if (label[this.top(x)] !== 1) continue;
+        due = this.now + this.vDual(x);
+      } else if (kind === KIND_EDGE) {
+        if (this.allowEdge[x] === 1) continue;
+        const bi = this.top(this.ei[x] as number);
+        const bj = this.top(this.ej[x] as number);
+        if (bi === bj) continue;
+        const li = label[bi];
+        const lj = label[bj];
+        if (li === 1 && lj === 1) due = this.now + this.slack(x) / 2;
+        else if ((li === 1 && lj === 0) || (li === 0 && lj === 1)) due = this.now + this.slack(x);
+        else continue;
+      } else if (kind === KIND_BLOSSOM) {
+        if ((this.blossomBase[x] as number) < 0 || this.blossomParent[x] !== -1 || label[x] !== 2) continue;
+        due = this.now + this.zDual(x);
+      } else {
+        const lv = (this.level as Float64Array)[x] as number;
+        if (lv === -Infinity || label[this.top(x)] !== 1) continue;
+        due = this.now + this.vDual(x) - lv;
       }
-    }
-    for (const v of this.bestSet) {
-      if (v < n && label[inBlossom[v] as number] === 0 && bestEdge[v] !== -1) {
-        const d = this.slack(bestEdge[v] as number);
-        if (deltaType === -1 || d < delta) {
-          delta = d;
-          deltaType = 2;
-          deltaEdge = bestEdge[v] as number;
-        }
+      if (due !== time) {
+        events.push(due, id);
+        continue;
       }
-    }
-    for (const b of this.labelled) {
-      if (blossomParent[b] === -1 && label[b] === 1 && bestEdge[b] !== -1) {
-        const d = this.slack(bestEdge[b] as number) / 2;
-        if (deltaType === -1 || d < delta) {
-          delta = d;
-          deltaType = 3;
-          deltaEdge = bestEdge[b] as number;
-        }
+      this.now = time;
+      if (kind === KIND_VERTEX) {
+        // The single-tree form of δ1: flip the tree path so x is left free at dual 0.
+        const root = this.treeOf[this.top(x)] as number;
+        this.flipToRoot(x, -1);
+        this.dissolveTree(root);
+        return 'changed';
       }
-    }
-    for (const b of this.labelled) {
-      if (
-        b >= n &&
-        (this.blossomBase[b] as number) >= 0 &&
-        blossomParent[b] === -1 &&
-        label[b] === 2 &&
-        (deltaType === -1 || (dualVar[b] as number) < delta)
-      ) {
-        delta = dualVar[b] as number;
-        deltaType = 4;
-        deltaBlossom = b;
+      if (kind === KIND_LEVEL) {
+        this.fetchEdges(x);
+        return 'continue';
       }
+      if (kind === KIND_EDGE) {
+        // The edge is tight now: use it directly (the formulation re-scans its outer end).
+        this.allow(x);
+        const i = this.ei[x] as number;
+        const fromI = label[this.top(i)] === 1;
+        if (this.useTightEdge(fromI ? i : (this.ej[x] as number), fromI ? 2 * x + 1 : 2 * x)) return 'changed';
+      } else {
+        this.expandBlossom(x, false);
+      }
+      return 'continue';
     }
-    if (deltaType === -1) {
-      // Max-cardinality optimum reached; a final step makes it verifiable (as in the formulation).
-      deltaType = 1;
-      delta = Math.max(0, this.minVertexDual());
-    }
-    this.applyDelta(delta);
+    return 'stop';
+  }
 
-    if (deltaType === 1) {
-      if (!this.maxCardinality && zeroVertex >= 0) {
-        const wasMatched = this.mate[zeroVertex] !== -1;
-        if (wasMatched || inBlossom[zeroVertex] !== zeroVertex) this.flipToRoot(zeroVertex, -1);
-        if (wasMatched) this.free.push(zeroVertex);
-        return 'released';
-      }
-      return 'stop';
+  /** Adds v's missing edges (its dual just reached its level); each new edge may be an event. */
+  private fetchEdges(v: number): void {
+    (this.level as Float64Array)[v] = -Infinity;
+    const { to, weight } = (this.lazy as LazyEdges).fetch(v);
+    for (let i = 0; i < to.length; i++) {
+      const k = this.addEdge(v, to[i] as number, weight[i] as number);
+      if (this.slack(k) < 0) throw new Error('solveMaxWeightMatching: a fetched edge violates its level');
+      this.edgeEvent(k);
     }
-    if (deltaType === 2) {
-      this.allow(deltaEdge);
-      let i = this.ei[deltaEdge] as number;
-      if (label[inBlossom[i] as number] === 0) i = this.ej[deltaEdge] as number;
-      this.queue.push(i);
-    } else if (deltaType === 3) {
-      this.allow(deltaEdge);
-      this.queue.push(this.ei[deltaEdge] as number);
-    } else {
-      this.expandBlossom(deltaBlossom, false);
-    }
-    return 'continue';
   }
 
   run(): BlossomSolution {
     const n = this.n;
+    for (let v = 0; v < n; v++) {
+      if (this.mate[v] !== -1) continue;
+      // Without maxCardinality a free vertex with dual 0 already satisfies complementary
+      // slackness; it is no root, but a tree may still end at it.
+      if (!this.maxCardinality && this.dualVar[v] === 0) continue;
+      this.assignLabel(v, 1, -1);
+    }
     let augmentations = 0;
-    while (this.startStage()) {
-      let changed = false;
-      for (;;) {
-        if (this.scanQueue()) {
-          changed = true;
-          break;
-        }
-        const step = this.dualStep();
-        if (step === 'released') changed = true;
-        if (step !== 'continue') break;
+    while (this.liveTrees > 0) {
+      if (this.scanQueue()) {
+        augmentations++;
+        continue;
       }
-      if (!changed) break;
-      augmentations++;
-      // End of stage: expand S-blossoms whose dual reached zero.
-      for (const b of this.labelled.slice()) {
-        if (
-          b >= n &&
-          this.blossomParent[b] === -1 &&
-          (this.blossomBase[b] as number) >= 0 &&
-          this.label[b] === 1 &&
-          this.dualVar[b] === 0
-        ) {
-          this.expandBlossom(b, true);
-        }
+      const step = this.dualStep();
+      if (step === 'changed') augmentations++;
+      if (step === 'stop') break;
+    }
+    if (this.liveTrees > 0) {
+      // Max-cardinality optimum reached; a final step makes it verifiable (as in the formulation).
+      let d = Infinity;
+      for (let v = 0; v < n; v++) d = Math.min(d, this.vDual(v));
+      this.now += Math.max(0, d);
+      for (let b = 0; b < 2 * n; b++) {
+        if (this.blossomParent[b] === -1 && (b < n || (this.blossomBase[b] as number) >= 0) && this.label[b] !== 0) this.settle(b);
       }
     }
     const mateVertex = new Int32Array(n).fill(-1);

@@ -39,32 +39,21 @@ export function itemsMismatch(it: PairItems, a: number, b: number): number {
 }
 
 /**
- * Calls visit(a, b) once for every compatible pair a < b. Items are sorted by hLo, so the scan
- * from a stops at the first b whose hLo is already out of hFE tolerance of hLo[a] (the ratio test
- * grows with hLo[b]); only the hFE window is visited, not all n² pairs.
+ * Appends to out every item b compatible with item a. Items are sorted by hLo, so each scan
+ * stops at the first item whose hLo is already out of hFE tolerance (the ratio test grows
+ * monotonically away from a); only the hFE window is visited, not all n items.
  */
-export function forEachCompatiblePair(it: PairItems, visit: (a: number, b: number) => void): void {
-  const t = it.hfeTolerancePct;
-  for (let a = 0; a < it.n; a++) {
-    const ha = it.hLo[a] as number;
-    for (let b = a + 1; b < it.n; b++) {
-      if (!hfeWithinTolerance(ha, it.hLo[b] as number, t)) break;
-      if (itemsCompatible(it, a, b)) visit(a, b);
-    }
-  }
-}
-
-/** Calls visit(b) for every item b compatible with item a (both directions of the hFE window). */
-export function forEachNeighbour(it: PairItems, a: number, visit: (b: number) => void): void {
+export function collectNeighbours(it: PairItems, a: number, out: number[]): number[] {
   const t = it.hfeTolerancePct;
   const ha = it.hLo[a] as number;
   const hha = it.hHi[a] as number;
   for (let b = a + 1; b < it.n; b++) {
     if (!hfeWithinTolerance(ha, it.hLo[b] as number, t)) break;
-    if (itemsCompatible(it, a, b)) visit(b);
+    if (itemsCompatible(it, a, b)) out.push(b);
   }
   for (let b = a - 1; b >= 0; b--) {
     if (!hfeWithinTolerance(it.hLo[b] as number, hha, t)) break;
-    if (itemsCompatible(it, a, b)) visit(b);
+    if (itemsCompatible(it, a, b)) out.push(b);
   }
+  return out;
 }

@@ -1,47 +1,47 @@
 import { solveAssignment } from './assignment.ts';
-import { solveMaxWeightMatching } from './blossom.ts';
-import { type PairItems, forEachCompatiblePair, forEachNeighbour, itemsMismatch } from './items.ts';
+import { type LazyEdges, solveMaxWeightMatching } from './blossom.ts';
+import { type PairItems, collectNeighbours, itemsCompatible, itemsMismatch } from './items.ts';
+import { hfeWithinTolerance } from './tolerance.ts';
 
-/** Nearest compatible neighbours (by mismatch) each item brings into the first, sparse graph. */
+/** Cheapest compatible edges each item brings into the first, sparse graph. */
 const NEAREST = 8;
 
 export interface PairSolution {
   /** Matched item pairs [a, b] with a < b. */
   readonly pairs: [number, number][];
-  /** Solve–certify rounds needed (1 when the sparse graph already held the optimum). */
+  /** LP rounds (sparse graph grown until the relaxation's duals held on the full graph). */
   readonly rounds: number;
-  /** Edges in the last graph solved / compatible pairs in the full graph. */
+  /** Edges the solver ended up holding / compatible pairs in the full graph. */
   readonly edgesSolved: number;
   readonly edgesCompatible: number;
 }
 
 /** Scale of the integer mismatch used as edge cost: q = round(mismatch · S), mismatch ∈ [0, 2]. */
 export function mismatchScale(n: number): number {
-  // Keeps every dual below 2^53 (they stay under ~8·n·S): exact integer arithmetic in doubles.
+  // Keeps every dual below 2^53 (they stay under ~16·n·S): exact integer arithmetic in doubles.
   return 2 ** Math.max(10, Math.min(26, 47 - Math.ceil(Math.log2(n + 2))));
 }
 
 /**
  * The largest number of disjoint compatible pairs of items and, among those, the smallest total
- * mismatch (exact for the mismatch rounded to 1/S, S = mismatchScale(n), i.e. ≈ 1.5·10⁻⁸).
+ * mismatch — exact for the mismatch rounded to 1/S (S = mismatchScale(n), 2^-26 ≈ 1.5·10⁻⁸ up to
+ * two million items).
  *
  * Method, and why it is exact:
- * 1. Cost of edge a–b: q = round(mismatch · S) ∈ [0, 2S]; weight W = 2(K − q) with K = n·S + 1.
- *    One more pair gains K, more than any difference in Σq (≤ (n/2)·2S), so a maximum-weight
- *    matching has maximum cardinality first and minimum Σq second.
- * 2. Doubled graph: a copy G′ of the graph and an edge v–v′ of weight 0 for each v. It has a
- *    perfect matching; a maximum-weight perfect matching of it restricts to an optimal matching
- *    of G (if the G half were worse than the G′ half, mirroring the better half would beat it).
- *    For perfect matching the primal–dual method accepts any feasible start, so each vertex can
- *    start with its own dual and the obvious pairs are matched greedily before the blossom stages
- *    (the free vertices of the non-perfect problem would all need the same dual).
- * 3. Sparse graph with certificate: G holds only each item's NEAREST cheapest compatible edges.
- *    After solving, every left-out edge a–b is checked against the duals: its slack is at least
- *    4q − g_a − g_b with g = 2K − y (blossom duals only add), and q ≥ d_a, d_b, the NEAREST-th
- *    cheapest cost at a and b; so an item with g ≤ 2d (in both copies) needs no edge check.
- *    Edges that may violate the bound are added and the graph is solved again. When none is left
- *    the duals are feasible on the full graph and the matching is optimal there by LP duality
- *    (Edmonds' matching polytope theorem), not only on the sparse graph.
+ * 1. Objective: minimise Σq + P·(unmatched items), q = round(mismatch · S) ∈ [0, 2S], P = n·S + 1.
+ *    Matching one more pair saves 2P, more than any difference in Σq (≤ (n/2)·2S), so the optimum
+ *    has maximum cardinality first and minimum Σq second.
+ * 2. Sparse graph: every item's NEAREST cheapest compatible edges. d_a, the NEAREST-th cheapest
+ *    cost at a, bounds every left-out edge at a from below.
+ * 3. LP relaxation (solveRelaxation): an optimal half-integral matching and duals pi from a
+ *    bipartite assignment. The duals are checked on every left-out edge (pi_a + pi_b ≤ q; an item
+ *    with pi_a ≤ d_a/2 needs no check) and failing edges are added until they hold, so the
+ *    relaxation is optimal for the full graph.
+ * 4. If it has odd cycles, the blossom algorithm continues from its matching and duals
+ *    (solveFromRelaxation), fetching an item's remaining edges when its dual passes d/2 — before
+ *    that every missing edge a–b has pi_a + pi_b ≤ (d_a + d_b)/2 ≤ q. The algorithm ends with a
+ *    matching and duals that satisfy the optimality conditions on the full graph (Edmonds'
+ *    matching polytope theorem), so the matching is optimal there.
  */
 export function solveMaxPairs(it: PairItems): PairSolution {
   const n = it.n;
@@ -49,14 +49,14 @@ export function solveMaxPairs(it: PairItems): PairSolution {
   const S = mismatchScale(n);
   const P = n * S + 1;
   const costOf = (a: number, b: number): number => Math.round(itemsMismatch(it, a, b) * S);
+  const keyOf = (a: number, b: number): number => (a < b ? a * n + b : b * n + a);
 
-  // The NEAREST cheapest compatible edges of every item.
-  const topQ = new Float64Array(n * NEAREST).fill(Infinity);
-  const topJ = new Int32Array(n * NEAREST).fill(-1);
+  // 2. The NEAREST cheapest compatible edges of every item (one sweep over the hFE windows).
+  const topQ = new Float64Array(n * NEAREST);
+  const topJ = new Int32Array(n * NEAREST);
   const count = new Int32Array(n);
   const worstQ = new Float64Array(n).fill(Infinity);
   const worstAt = new Int32Array(n);
-  let edgesCompatible = 0;
   const offer = (a: number, b: number, q: number): void => {
     const base = a * NEAREST;
     const c = count[a] as number;
@@ -75,83 +75,153 @@ export function solveMaxPairs(it: PairItems): PairSolution {
     worstAt[a] = w;
     worstQ[a] = topQ[base + w] as number;
   };
-  forEachCompatiblePair(it, (a, b) => {
-    edgesCompatible++;
-    const q = costOf(a, b);
-    offer(a, b, q);
-    offer(b, a, q);
-  });
-  // d_a: cost every left-out edge at a is at least (Infinity when a keeps all its edges).
+  let edgesCompatible = 0;
+  const t = it.hfeTolerancePct;
+  for (let a = 0; a < n; a++) {
+    const ha = it.hLo[a] as number;
+    for (let b = a + 1; b < n; b++) {
+      if (!hfeWithinTolerance(ha, it.hLo[b] as number, t)) break;
+      if (!itemsCompatible(it, a, b)) continue;
+      edgesCompatible++;
+      const q = costOf(a, b);
+      offer(a, b, q);
+      offer(b, a, q);
+    }
+  }
   const bound = new Float64Array(n);
   for (let a = 0; a < n; a++) bound[a] = (count[a] as number) < NEAREST ? Infinity : (worstQ[a] as number);
 
-  const keyOf = (a: number, b: number): number => (a < b ? a * n + b : b * n + a);
+  // The graph the solvers hold: adjacency lists for membership tests, keys for the edge list.
+  const held: number[][] = [];
+  for (let a = 0; a < n; a++) held.push([]);
+  const mark = new Int32Array(n).fill(-1);
   let keys: number[] = [];
+  const hold = (a: number, b: number): void => {
+    (held[a] as number[]).push(b);
+    (held[b] as number[]).push(a);
+    keys.push(keyOf(a, b));
+  };
   for (let a = 0; a < n; a++) {
     const base = a * NEAREST;
-    for (let s = 0; s < (count[a] as number); s++) keys.push(keyOf(a, topJ[base + s] as number));
+    const own = held[a] as number[];
+    for (const b of own) mark[b] = a;
+    for (let s = 0; s < (count[a] as number); s++) {
+      const b = topJ[base + s] as number;
+      if (mark[b] === a) continue;
+      mark[b] = a;
+      hold(a, b);
+    }
   }
-  keys.sort((x, y) => x - y);
-  keys = keys.filter((k, i) => i === 0 || k !== keys[i - 1]);
-  let inGraph: Set<number> | null = null;
+  const scratch: number[] = [];
+  /** Compatible neighbours of a not yet held, marked with stamp a. */
+  const missing = (a: number, stamp: number): number[] => {
+    for (const b of held[a] as number[]) mark[b] = stamp;
+    scratch.length = 0;
+    collectNeighbours(it, a, scratch);
+    const out: number[] = [];
+    for (const b of scratch) if (mark[b] !== stamp) out.push(b);
+    return out;
+  };
+  let stampBase = n;
 
+  // 3. The LP relaxation, until its duals hold on the full graph.
   let rounds = 0;
+  let lp: Relaxation;
   for (;;) {
     rounds++;
-    const m = keys.length;
-    const edgeA = new Int32Array(m);
-    const edgeB = new Int32Array(m);
-    const cost = new Float64Array(m);
-    for (let e = 0; e < m; e++) {
-      const key = keys[e] as number;
-      const a = Math.floor(key / n);
-      const b = key - a * n;
-      edgeA[e] = a;
-      edgeB[e] = b;
-      cost[e] = costOf(a, b);
-    }
-    const { mate, pi } = solveSparse(n, edgeA, edgeB, cost, P);
-
-    // Certificate (point 4 above): pi[a] + pi[b] ≤ q on every left-out edge, in both copies.
-    const added: number[] = [];
+    const g = edgeArrays(n, keys, costOf);
+    lp = solveRelaxation(n, g.edgeA, g.edgeB, g.cost, P);
+    const before = keys.length;
     for (let a = 0; a < n; a++) {
-      const limit = (bound[a] as number) / 2;
-      if ((pi[a] as number) <= limit) continue;
-      if (inGraph === null) inGraph = new Set(keys);
-      const set = inGraph;
-      forEachNeighbour(it, a, (b) => {
-        const key = keyOf(a, b);
-        if (set.has(key)) return;
-        const q = costOf(a, b);
-        if (q < (pi[a] as number) + (pi[b] as number)) {
-          set.add(key);
-          added.push(key);
+      const pa = lp.pi[a] as number;
+      if (pa <= (bound[a] as number) / 2) continue;
+      for (const b of missing(a, stampBase++)) {
+        if (costOf(a, b) < pa + (lp.pi[b] as number)) {
+          mark[b] = stampBase - 1;
+          hold(a, b);
         }
-      });
-    }
-    if (added.length === 0) {
-      const pairs: [number, number][] = [];
-      for (let a = 0; a < n; a++) {
-        const b = mate[a] as number;
-        if (b > a) pairs.push([a, b]);
       }
-      return { pairs, rounds, edgesSolved: m, edgesCompatible };
     }
-    keys = keys.concat(added).sort((x, y) => x - y);
+    if (keys.length === before) break;
+  }
+  if (lp.oddCycles === 0) return result(lp.mate, keys.length);
+
+  // 4. Odd cycles left: blossom algorithm with lazily fetched edges. An item whose dual already
+  //    exceeds d/2 gets all its edges now. In max-weight form y = 4P − 4·pi, so the level
+  //    pi = d/2 is y = 4P − 2d.
+  const level = new Float64Array(n);
+  for (let a = 0; a < n; a++) {
+    const d = bound[a] as number;
+    if (d === Infinity) {
+      level[a] = -Infinity;
+    } else if ((lp.pi[a] as number) > d / 2) {
+      level[a] = -Infinity;
+      for (const b of missing(a, stampBase++)) hold(a, b);
+    } else {
+      level[a] = 4 * P - 2 * d;
+    }
+  }
+  const g = edgeArrays(n, keys, costOf);
+  const exact = solveFromRelaxation(n, g.edgeA, g.edgeB, g.cost, P, lp, {
+    level,
+    fetch(a) {
+      const to = missing(a, stampBase++);
+      const weight: number[] = [];
+      for (const b of to) {
+        hold(a, b);
+        weight.push(2 * (2 * P - costOf(a, b)));
+      }
+      return { to, weight };
+    },
+  });
+  return result(exact.mate, keys.length);
+
+  function result(mate: Int32Array, edgesSolved: number): PairSolution {
+    const pairs: [number, number][] = [];
+    for (let a = 0; a < n; a++) {
+      const b = mate[a] as number;
+      if (b > a) pairs.push([a, b]);
+    }
+    return { pairs, rounds, edgesSolved, edgesCompatible };
   }
 }
 
+function edgeArrays(n: number, keys: number[], costOf: (a: number, b: number) => number) {
+  const m = keys.length;
+  const edgeA = new Int32Array(m);
+  const edgeB = new Int32Array(m);
+  const cost = new Float64Array(m);
+  for (let e = 0; e < m; e++) {
+    const key = keys[e] as number;
+    const a = Math.floor(key / n);
+    const b = key - a * n;
+    edgeA[e] = a;
+    edgeB[e] = b;
+    cost[e] = costOf(a, b);
+  }
+  return { edgeA, edgeB, cost };
+}
+
+interface Relaxation {
+  /** Partner from the assignment's 2-cycles and even cycles (and odd cycles but one item), or −1. */
+  readonly mate: Int32Array;
+  /** Min-cost duals: pi[a] + pi[b] ≤ q on every edge, pi[a] ≤ P, equality on the support. */
+  readonly pi: Float64Array;
+  readonly oddCycles: number;
+}
+
 /**
- * Optimal matching of the sparse graph (edges a–b with integer cost q, penalty P per unmatched
- * item) and min-cost duals pi for the 2n vertices of the doubled graph (copy G′ at n…2n−1):
- * pi[a] + pi[b] ≤ q on every edge of either copy, pi[v] + pi[v′] ≤ 2P, equality on the matching.
- * mate[a] is the partner in G or −1.
+ * The LP relaxation of the sparse problem (edges a–b with integer cost q, penalty P per
+ * unmatched item): a minimum-cost perfect assignment on the bipartite double cover (row a →
+ * column b for each edge both ways, row a → column a at 2P for "a unmatched"). Its optimum is an
+ * optimal half-integral fractional matching: 2-cycles of the assignment are pairs, longer cycles
+ * carry ½ on each edge. With pi = (u + v)/2 (symmetrised optimal duals) every edge of every cycle
+ * is tight (complementary slackness), so alternate edges of each cycle can be taken as pairs;
+ * an odd cycle leaves one item over.
  */
-function solveSparse(n: number, edgeA: Int32Array, edgeB: Int32Array, cost: Float64Array, P: number) {
+function solveRelaxation(n: number, edgeA: Int32Array, edgeB: Int32Array, cost: Float64Array, P: number): Relaxation {
   const m = edgeA.length;
   const self = 2 * P;
-  // Bipartite double cover: row a → column b for each edge in both directions, row a → column a
-  // (a left unmatched) at cost 2P.
   const rowStart = new Int32Array(n + 1);
   for (let e = 0; e < m; e++) {
     rowStart[(edgeA[e] as number) + 1]++;
@@ -173,18 +243,14 @@ function solveSparse(n: number, edgeA: Int32Array, edgeB: Int32Array, cost: Floa
     arcCol[fill[b] as number] = a;
     arcCost[fill[b]++ as number] = cost[e] as number;
   }
-  const T0 = performance.now();
   const { colOf, u, v } = solveAssignment({ n, rowStart, arcCol, arcCost });
-  console.log('assign ms', (performance.now() - T0).toFixed(1), 'm', m);
   const pi = new Float64Array(n);
   for (let a = 0; a < n; a++) pi[a] = ((u[a] as number) + (v[a] as number)) / 2;
 
-  // Cycles of the assignment: fixed points stay unmatched, 2-cycles are pairs, longer cycles are
-  // matched alternately (an odd one leaves one item free).
   const mate = new Int32Array(n).fill(-1);
   const seen = new Uint8Array(n);
-  const oddFree: number[] = [];
   const cycle: number[] = [];
+  let oddCycles = 0;
   for (let a0 = 0; a0 < n; a0++) {
     if (seen[a0]) continue;
     cycle.length = 0;
@@ -196,35 +262,46 @@ function solveSparse(n: number, edgeA: Int32Array, edgeB: Int32Array, cost: Floa
       mate[cycle[i] as number] = cycle[i + 1] as number;
       mate[cycle[i + 1] as number] = cycle[i] as number;
     }
-    if (cycle.length % 2 === 1 && cycle.length > 1) oddFree.push(cycle[cycle.length - 1] as number);
+    if (cycle.length % 2 === 1 && cycle.length > 1) oddCycles++;
   }
-  console.log('oddFree', oddFree.length);
-  if (oddFree.length === 0) return { mate, pi };
+  return { mate, pi, oddCycles };
+}
 
-  // Odd cycles: finish with the blossom algorithm, started from this matching and these duals.
-  // Max-weight form, all doubled so the duals are even: w = 2(2P − q), y = 2(2P − 2·pi) ≥ 0.
-  const edgeI = new Int32Array(edgeA);
-  const edgeJ = new Int32Array(edgeB);
+/**
+ * The exact optimum: the blossom algorithm started from the relaxation's matching and duals
+ * (max-weight form, all doubled so the duals are even: w = 2(2P − q), y = 2(2P − 2·pi) ≥ 0; the
+ * items left over by odd cycles are the free vertices with y > 0).
+ */
+function solveFromRelaxation(
+  n: number,
+  edgeA: Int32Array,
+  edgeB: Int32Array,
+  cost: Float64Array,
+  P: number,
+  lp: Relaxation,
+  lazyEdges: LazyEdges,
+): { mate: Int32Array } {
+  const m = edgeA.length;
   const weight = new Float64Array(m);
   const edgeOf = new Map<number, number>();
   for (let e = 0; e < m; e++) {
-    weight[e] = 2 * (self - (cost[e] as number));
+    weight[e] = 2 * (2 * P - (cost[e] as number));
     edgeOf.set((edgeA[e] as number) * n + (edgeB[e] as number), e);
   }
   const mateEdge = new Int32Array(n).fill(-1);
   const dual = new Float64Array(n);
   for (let a = 0; a < n; a++) {
-    dual[a] = 2 * (self - 2 * (pi[a] as number));
-    const b = mate[a] as number;
+    dual[a] = 2 * (2 * P - 2 * (lp.pi[a] as number));
+    const b = lp.mate[a] as number;
     if (b > a) {
       const e = edgeOf.get(a * n + b) as number;
       mateEdge[a] = e;
       mateEdge[b] = e;
     }
   }
-  const T1 = performance.now();
-  const res = solveMaxWeightMatching({ nVertex: n, edgeI, edgeJ, weight }, { start: { mateEdge, dual } });
-  console.log('blossom ms', (performance.now() - T1).toFixed(1), res.augmentations);
-  for (let a = 0; a < n; a++) pi[a] = (2 * self - (res.dual[a] as number)) / 4;
-  return { mate: res.mate, pi };
+  const res = solveMaxWeightMatching(
+    { nVertex: n, edgeI: edgeA, edgeJ: edgeB, weight },
+    { start: { mateEdge, dual }, lazyEdges },
+  );
+  return { mate: res.mate };
 }

@@ -197,6 +197,8 @@ export function* orderPlanSteps(input: OrderPlanInput, rng: () => number, match:
   const thresholds: number[] = [];
   const seeds: number[] = [];
   let unreachable = 0;
+  // Sets gained per part added near the threshold; at most 1/setSize, learnt from the probes.
+  let slopeEstimate = 1 / o.setSize;
   for (let sim = 0; sim < o.simulations; sim++) {
     const seed = Math.floor(rng() * 4294967296);
     seeds.push(seed);
@@ -205,13 +207,27 @@ export function* orderPlanSteps(input: OrderPlanInput, rng: () => number, match:
     let hi = Number.POSITIVE_INFINITY;
     const sorted = [...thresholds].sort((a, b) => a - b);
     let guess = sorted.length ? (sorted[Math.floor(sorted.length / 2)] as number) : minQ;
+    let prev: { q: number; s: number } | null = null;
     while (lo < hi && lo <= o.maxQuantity) {
       const q = Math.min(o.maxQuantity, Math.max(lo, Math.min(hi - 1, guess)));
       const s = setsAt(stream, q);
       if (s >= N) hi = Math.min(hi, q - (s - N));
       else lo = Math.max(lo, q + (N - s));
-      // Bisect once bracketed; before that, extrapolate in proportion (or double when nothing matched).
-      guess = Number.isFinite(hi) ? Math.floor((lo + hi) / 2) : Math.max(lo, s > 0 ? Math.ceil((q * N) / s) : 2 * q);
+      // Next probe: the secant through the last two probes predicts where sets(Q) reaches N
+      // (slope = sets gained per part added, from the previous lots before a second probe);
+      // bisection when the prediction is of no use. Only the number of calls depends on it:
+      // the bracket [lo, hi] is exact either way.
+      const local = prev && prev.q !== q ? (s - prev.s) / (q - prev.q) : null;
+      const slope = local !== null && local > 0 ? Math.min(1, local) : slopeEstimate;
+      prev = { q, s };
+      if (s >= N) {
+        guess = Math.floor(q - (s - N) / slope);
+      } else {
+        guess = Math.ceil(q + (N - s) / slope);
+      }
+      if (Number.isFinite(hi) && (guess < lo || guess >= hi)) guess = Math.floor((lo + hi) / 2);
+      if (!Number.isFinite(hi) && s === 0) guess = Math.max(lo, 2 * q);
+      if (local !== null && local > 0) slopeEstimate = 0.8 * slopeEstimate + 0.2 * Math.min(1, local);
     }
     if (lo > o.maxQuantity) unreachable++;
     else thresholds.push(lo);

@@ -69,6 +69,13 @@ describe('compareLotWithHistory', () => {
     expect(r.flags.some((f) => f.check === 'outside')).toBe(true);
   });
 
+  it('does not flag a single reading outside the gain group (the sampling plan judges that), even above 1 %', () => {
+    const lot = [...normalSample(52, 79, 180, 15), 95];
+    const r = compareLotWithHistory({ lot, history, limits: LIMITS });
+    expect(r.figures.outside).toMatchObject({ count: 1, share: 1 / 80 });
+    expect(r.flags.some((f) => f.check === 'outside')).toBe(false);
+  });
+
   it('honours a changed threshold', () => {
     const lot = normalSample(61, 80, 192, 18);
     const strict = compareLotWithHistory({ lot, history, limits: LIMITS, settings: { medianShiftPct: 2 } });

@@ -3,6 +3,9 @@ import { Link, useParams } from 'react-router-dom';
 import { Notice } from '../../../components/ui/notice.tsx';
 import { Loading, PageHeader, Panel } from '../../../components/ui/page.tsx';
 import { LotStatusTag } from '../../../features/bench-queue/components/bench-queue-table.tsx';
+import { binKeys } from '../../../features/bins/api/keys.ts';
+import { LotScreeningPanel } from '../../../features/bins/components/lot-screening-panel.tsx';
+import { ScreeningCallout } from '../../../features/bins/components/screening-callout.tsx';
 import { dispositionKeys } from '../../../features/disposition/api/keys.ts';
 import { DispositionPanel } from '../../../features/disposition/components/disposition-panel.tsx';
 import { lotResultKeys } from '../../../features/lot-results/api/keys.ts';
@@ -32,6 +35,7 @@ export function BenchLotPage() {
     void qc.invalidateQueries({ queryKey: measurementKeys.lot(lotId) });
     void qc.invalidateQueries({ queryKey: lotResultKeys.lot(lotId) });
     void qc.invalidateQueries({ queryKey: dispositionKeys.lot(lotId) });
+    void qc.invalidateQueries({ queryKey: binKeys.lot(lotId) });
   };
 
   if (!Number.isSafeInteger(lotId) || lotId < 1) return <Notice tone="fail" title="No such lot">The address does not name a lot.</Notice>;
@@ -84,6 +88,7 @@ export function BenchLotPage() {
               <div className="grid gap-5 xl:grid-cols-[minmax(0,1fr)_26rem]">
                 <div className="flex min-w-0 flex-col gap-5">
                   <Panel title="Measure">
+                    <ScreeningCallout lotId={lot.id} containerHref={(cid) => `/bins/containers/${cid}`} />
                     <MeasurementCapture
                       lotId={lot.id}
                       userId={user.id}
@@ -101,6 +106,7 @@ export function BenchLotPage() {
                 <div className="flex flex-col gap-5">
                   <LotPlanPanel data={plan.data} canRecordCorrectiveAction={user.role === 'quality'} />
                   <DispositionPanel lotId={lot.id} role={user.role} onChanged={refreshLot} />
+                  <LotScreeningPanel lotId={lot.id} canEdit={user.role === 'inspector' || user.role === 'quality'} containerHref={(cid) => `/bins/containers/${cid}`} />
                 </div>
               </div>
             </>

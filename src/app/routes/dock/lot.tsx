@@ -1,6 +1,7 @@
 import { Link, useParams } from 'react-router-dom';
 import { Notice } from '../../../components/ui/notice.tsx';
 import { Loading, PageHeader } from '../../../components/ui/page.tsx';
+import { LotScreeningPanel } from '../../../features/bins/components/lot-screening-panel.tsx';
 import { useLot } from '../../../features/lots/api/get-lot.ts';
 import { DocumentsPanel } from '../../../features/lots/components/documents-panel.tsx';
 import { EsdCaution } from '../../../features/lots/components/esd-caution.tsx';
@@ -48,6 +49,7 @@ export function LotPage() {
             <div className="flex flex-col gap-5">
               <LotSummary lot={q.data} />
               <DocumentsPanel lot={q.data} canUpload={canEdit} />
+              <LotScreeningPanel lotId={q.data.id} canEdit={canEdit} containerHref={(cid) => `/bins/containers/${cid}`} />
             </div>
             <div className="flex flex-col gap-5">
               <EsdCaution lot={q.data} />

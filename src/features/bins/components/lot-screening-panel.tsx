@@ -31,19 +31,19 @@ function YieldTable({ s }: { s: LotScreening }) {
       <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
         <tr>
           <th className="py-1 pr-2">Bin</th>
-          <th className="py-1 pr-2">hFE at 25 °C</th>
+          <th className="py-1 pr-2 whitespace-nowrap">hFE at 25 °C</th>
           <th className="py-1 pr-2 text-right">Parts</th>
           <th className="py-1 pr-2 text-right">Yield</th>
-          <th className="w-1/3 py-1" aria-hidden />
+          <th className="w-1/4 min-w-[3rem] py-1" aria-hidden />
         </tr>
       </thead>
       <tbody>
         {rows.map((r) => (
           <tr key={r.key} className="border-t border-rule/70">
-            <td className="py-1 pr-2">{r.chip}</td>
-            <td className="num py-1 pr-2 text-ink-soft">{r.interval}</td>
+            <td className="py-1 pr-2 whitespace-nowrap">{r.chip}</td>
+            <td className="num py-1 pr-2 whitespace-nowrap text-ink-soft">{r.interval}</td>
             <td className="num py-1 pr-2 text-right font-semibold">{r.count.toLocaleString()}</td>
-            <td className="num py-1 pr-2 text-right">{r.pct.toFixed(1)} %</td>
+            <td className="num py-1 pr-2 whitespace-nowrap text-right">{r.pct.toFixed(1)} %</td>
             <td className="py-1" aria-hidden>
               <div className="h-2.5 rounded-sm" style={{ width: `${Math.max(r.pct, r.count ? 1 : 0)}%`, background: r.fill }} />
             </td>

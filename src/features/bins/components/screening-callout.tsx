@@ -14,13 +14,15 @@ export function ScreeningCallout({ lotId, containerHref }: { lotId: number; cont
   if (!q.data || (!q.data.screeningOpen && !last)) return null;
   if (!last) {
     return (
-      <Notice tone="info" title="Screening into bins">
-        Each part's bin, container and position appear here in large type as soon as its reading is recorded.
-      </Notice>
+      <div className="mb-4">
+        <Notice tone="info" title="Screening into bins">
+          Each part's bin, container and position appear here in large type as soon as its reading is recorded.
+        </Notice>
+      </div>
     );
   }
   return (
-    <section aria-live="polite" aria-label="Where the last part goes" className="rounded-lg border-2 border-ink/20 bg-panel p-3" data-testid="screening-callout">
+    <section aria-live="polite" aria-label="Where the last part goes" className="mb-4 rounded-lg border-2 border-ink/20 bg-panel p-3" data-testid="screening-callout">
       <p className="mb-2 text-xs font-bold uppercase tracking-wide text-ink-soft">Part {last.lotPosition} goes to</p>
       <div className="flex flex-wrap items-center gap-4">
         <BigBin bin={last.bin} />

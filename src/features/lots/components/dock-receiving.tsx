@@ -1,5 +1,5 @@
 import { useState } from 'react';
-import { Link } from 'react-router-dom';
+import { Link, useNavigate } from 'react-router-dom';
 import type { ParseLabelResponse } from '../../../../shared/api/labels.ts';
 import type { LotDetail } from '../../../../shared/api/lots.ts';
 import type { Role } from '../../../../shared/api/roles.ts';
@@ -47,9 +47,14 @@ export function DockReceiving({ role, lotHref, onReceived }: { role: Role; lotHr
   const [scan, setScan] = useState<{ n: number; parsed: ParseLabelResponse | null }>({ n: 0, parsed: null });
   const parseError = parse.error instanceof ApiError ? parse.error : null;
 
+  const navigate = useNavigate();
   const onScan = (text: string) =>
     parse.mutate(text, {
-      onSuccess: (parsed) => setScan((s) => ({ n: s.n + 1, parsed })),
+      onSuccess: (parsed) => {
+        // One of our container codes opens that container in Bins.
+        if (parsed.format === null && parsed.plainCodeKind === 'container' && parsed.plainCode) return navigate(`/bins/containers/code/${encodeURIComponent(parsed.plainCode)}`);
+        setScan((s) => ({ n: s.n + 1, parsed }));
+      },
     });
 
   const parsed = scan.parsed;

@@ -1,0 +1,4 @@
+export const orderPlanKeys = {
+  all: ['order-plans'] as const,
+  detail: (id: string) => [...orderPlanKeys.all, id] as const,
+};
