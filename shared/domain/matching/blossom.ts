@@ -80,10 +80,12 @@ export function solveMaxWeightMatching(graph: BlossomGraph, options: BlossomOpti
   return new BlossomSolver(graph, options.maxCardinality === true, options.start, options.lazyEdges).run();
 }
 
-const KIND_VERTEX = 0; // δ1: an outer vertex's dual reaches 0
-const KIND_EDGE = 1; // δ2 / δ3: an edge from an outer vertex becomes tight
-const KIND_BLOSSOM = 2; // δ4: an inner blossom's dual reaches 0
-const KIND_LEVEL = 3; // an outer vertex's dual reaches its lazy-edge level
+// Events, keyed by the time they happen; id = 8·x + kind.
+const KIND_VERTEX = 0; // δ1: outer vertex x's dual reaches 0
+const KIND_FREE = 1; // δ2: the best edge from an outer vertex to unlabelled vertex x becomes tight
+const KIND_BLOSSOM = 2; // δ4: inner blossom x's dual reaches 0
+const KIND_LEVEL = 3; // outer vertex x's dual reaches its lazy-edge level
+const KIND_OUTER = 4; // δ3: the best edge from outer vertex x to another outer blossom becomes tight
 
 /**
  * The state of one run; one method per step of the formulation. Three refinements, none of
@@ -129,6 +131,14 @@ class BlossomSolver {
   /** Time since which each vertex's dual has moved at the rate its top-level label gives. */
   private readonly timeRef: Float64Array;
   private allowEdge: Uint8Array;
+  /**
+   * Best (least-slack) recorded edge from an outer vertex to each unlabelled vertex, and from each
+   * outer vertex to another outer blossom — the formulation's bestedge, kept per vertex. All such
+   * slacks fall at the same rate, so a best edge stays best until it stops qualifying; then the
+   * vertex's edges are scanned again when its event comes up.
+   */
+  private readonly bestFree: Int32Array;
+  private readonly bestOuter: Int32Array;
   private readonly queue: number[] = [];
   private readonly events = new MinHeap();
   private now = 0;
@@ -181,6 +191,8 @@ class BlossomSolver {
     this.labelTime = new Float64Array(2 * n);
     this.timeRef = new Float64Array(n);
     this.allowEdge = new Uint8Array(m);
+    this.bestFree = new Int32Array(n).fill(-1);
+    this.bestOuter = new Int32Array(n).fill(-1);
     this.treeOf = new Int32Array(2 * n).fill(-1);
     this.treeTops = new Array<number[] | null>(n).fill(null);
     this.visitMark = new Int32Array(2 * n);
@@ -303,10 +315,10 @@ class BlossomSolver {
   /** Queues S-vertex v for scanning and, without maxCardinality, the time its dual reaches 0. */
   private becameOuter(v: number): void {
     this.queue.push(v);
-    if (!this.maxCardinality) this.events.push(this.now + this.vDual(v), 4 * v + KIND_VERTEX);
+    if (!this.maxCardinality) this.events.push(this.now + this.vDual(v), 8 * v + KIND_VERTEX);
     const level = this.level;
     if (level !== null && (level[v] as number) > -Infinity) {
-      this.events.push(this.now + this.vDual(v) - (level[v] as number), 4 * v + KIND_LEVEL);
+      this.events.push(this.now + this.vDual(v) - (level[v] as number), 8 * v + KIND_LEVEL);
     }
   }
 
@@ -326,7 +338,7 @@ class BlossomSolver {
     if (t === 1) {
       for (const v of lv) this.becameOuter(v);
     } else {
-      if (b >= this.n) this.events.push(this.now + (this.dualVar[b] as number), 4 * b + KIND_BLOSSOM);
+      if (b >= this.n) this.events.push(this.now + (this.dualVar[b] as number), 8 * b + KIND_BLOSSOM);
       const mb = this.mate[this.blossomBase[b] as number] as number;
       this.assignLabel(this.endpoint[mb] as number, 1, mb ^ 1);
     }
@@ -461,7 +473,7 @@ class BlossomSolver {
       }
       const bv0 = at(childs, j);
       this.setTopLabel(bv0, 2, root);
-      if (bv0 >= n) this.events.push(this.now + (this.dualVar[bv0] as number), 4 * bv0 + KIND_BLOSSOM);
+      if (bv0 >= n) this.events.push(this.now + (this.dualVar[bv0] as number), 8 * bv0 + KIND_BLOSSOM);
       labelEnd[endpoint[p ^ 1] as number] = p;
       labelEnd[bv0] = p;
       j += jStep;
@@ -473,11 +485,7 @@ class BlossomSolver {
       // Children left unlabelled: their edges to S-vertices become δ2 candidates again.
       for (const c of childs) {
         if (label[c] !== 0) continue;
-        for (const x of this.leaves(c, [])) {
-          for (const p2 of this.adj[x] as number[]) {
-            if (label[this.top(endpoint[p2] as number)] === 1) this.edgeEvent(p2 >> 1);
-          }
-        }
+        for (const x of this.leaves(c, [])) this.recomputeFree(x);
       }
     }
     label[b] = 0;
@@ -596,12 +604,9 @@ class BlossomSolver {
     const vertices: number[] = [];
     for (const x of tops) this.leaves(x, vertices);
     for (const b of wasOuterZero) this.expandBlossom(b, true);
-    const { endpoint, label } = this;
     for (const x of vertices) {
-      for (const p of this.adj[x] as number[]) {
-        this.allowEdge[p >> 1] = 0;
-        if (label[this.top(endpoint[p] as number)] === 1) this.edgeEvent(p >> 1);
-      }
+      for (const p of this.adj[x] as number[]) this.allowEdge[p >> 1] = 0;
+      this.recomputeFree(x);
     }
   }
 
@@ -615,18 +620,74 @@ class BlossomSolver {
     if (tj !== ti) this.dissolveTree(tj);
   }
 
-  /**
-   * Records when edge k (not tight, at least one end outer) becomes tight: S–S edges close at
-   * rate 2 (δ3), S–free edges at rate 1 (δ2); S–T edges keep their slack and are not recorded.
-   */
-  private edgeEvent(k: number): void {
-    const bi = this.top(this.ei[k] as number);
-    const bj = this.top(this.ej[k] as number);
-    if (bi === bj) return;
-    const li = this.label[bi];
-    const lj = this.label[bj];
-    if (li === 1 && lj === 1) this.events.push(this.now + this.slack(k) / 2, 4 * k + KIND_EDGE);
-    else if ((li === 1 && lj === 0) || (li === 0 && lj === 1)) this.events.push(this.now + this.slack(k), 4 * k + KIND_EDGE);
+  /** The end of edge k (incident to v) that is not v. */
+  private other(k: number, v: number): number {
+    const i = this.ei[k] as number;
+    return i === v ? (this.ej[k] as number) : i;
+  }
+
+  /** Edge k from unlabelled vertex w still counts for w's δ2: its other end is outer. */
+  private isFreeEdge(w: number, k: number): boolean {
+    const bu = this.top(this.other(k, w));
+    return bu !== this.top(w) && this.label[bu] === 1;
+  }
+
+  /** Edge k from outer vertex v still counts for v's δ3: its other end is in another outer blossom. */
+  private isOuterEdge(v: number, k: number): boolean {
+    const bu = this.top(this.other(k, v));
+    return bu !== this.top(v) && this.label[bu] === 1;
+  }
+
+  private offerFree(w: number, k: number): void {
+    const cur = this.bestFree[w] as number;
+    const s = this.slack(k);
+    if (cur === -1 || !this.isFreeEdge(w, cur) || s < this.slack(cur)) {
+      this.bestFree[w] = k;
+      this.events.push(this.now + s, 8 * w + KIND_FREE);
+    }
+  }
+
+  private offerOuter(v: number, k: number): void {
+    const cur = this.bestOuter[v] as number;
+    const s = this.slack(k);
+    if (cur === -1 || !this.isOuterEdge(v, cur) || s < this.slack(cur)) {
+      this.bestOuter[v] = k;
+      this.events.push(this.now + s / 2, 8 * v + KIND_OUTER);
+    }
+  }
+
+  /** Finds unlabelled vertex w's least-slack edge to an outer vertex again. */
+  private recomputeFree(w: number): void {
+    let best = -1;
+    let bestSlack = Infinity;
+    for (const p of this.adj[w] as number[]) {
+      const k = p >> 1;
+      if (!this.isFreeEdge(w, k)) continue;
+      const s = this.slack(k);
+      if (s < bestSlack) {
+        bestSlack = s;
+        best = k;
+      }
+    }
+    this.bestFree[w] = best;
+    if (best >= 0) this.events.push(this.now + bestSlack, 8 * w + KIND_FREE);
+  }
+
+  /** Finds outer vertex v's least-slack edge to another outer blossom again. */
+  private recomputeOuter(v: number): void {
+    let best = -1;
+    let bestSlack = Infinity;
+    for (const p of this.adj[v] as number[]) {
+      const k = p >> 1;
+      if (!this.isOuterEdge(v, k)) continue;
+      const s = this.slack(k);
+      if (s < bestSlack) {
+        bestSlack = s;
+        best = k;
+      }
+    }
+    this.bestOuter[v] = best;
+    if (best >= 0) this.events.push(this.now + bestSlack / 2, 8 * v + KIND_OUTER);
   }
 
   /** Follows tight edges from the queued S-vertices; true when the matching was augmented. */
@@ -642,7 +703,10 @@ class BlossomSolver {
         if (this.top(v) === this.top(this.endpoint[p] as number)) continue;
         if (this.allowEdge[k] === 0) {
           if (this.slack(k) > 0) {
-            this.edgeEvent(k);
+            const w = this.endpoint[p] as number;
+            const lw = label[this.top(w)];
+            if (lw === 1) this.offerOuter(v, k);
+            else if (lw === 0) this.offerFree(w, k);
             continue;
           }
           this.allow(k);
@@ -698,22 +762,30 @@ class BlossomSolver {
       const time = events.topKey;
       const id = events.topId;
       events.pop();
-      const kind = id & 3;
-      const x = id >> 2;
+      const kind = id & 7;
+      const x = id >> 3;
       let due: number;
       if (kind === KIND_VERTEX) {
         if (label[this.top(x)] !== 1) continue;
         due = this.now + this.vDual(x);
-      } else if (kind === KIND_EDGE) {
-        if (this.allowEdge[x] === 1) continue;
-        const bi = this.top(this.ei[x] as number);
-        const bj = this.top(this.ej[x] as number);
-        if (bi === bj) continue;
-        const li = label[bi];
-        const lj = label[bj];
-        if (li === 1 && lj === 1) due = this.now + this.slack(x) / 2;
-        else if ((li === 1 && lj === 0) || (li === 0 && lj === 1)) due = this.now + this.slack(x);
-        else continue;
+      } else if (kind === KIND_FREE) {
+        if (label[this.top(x)] !== 0) continue;
+        const k = this.bestFree[x] as number;
+        if (k === -1) continue;
+        if (!this.isFreeEdge(x, k)) {
+          this.recomputeFree(x);
+          continue;
+        }
+        due = this.now + this.slack(k);
+      } else if (kind === KIND_OUTER) {
+        if (label[this.top(x)] !== 1) continue;
+        const k = this.bestOuter[x] as number;
+        if (k === -1) continue;
+        if (!this.isOuterEdge(x, k)) {
+          this.recomputeOuter(x);
+          continue;
+        }
+        due = this.now + this.slack(k) / 2;
       } else if (kind === KIND_BLOSSOM) {
         if ((this.blossomBase[x] as number) < 0 || this.blossomParent[x] !== -1 || label[x] !== 2) continue;
         due = this.now + this.zDual(x);
@@ -738,12 +810,14 @@ class BlossomSolver {
         this.fetchEdges(x);
         return 'continue';
       }
-      if (kind === KIND_EDGE) {
+      if (kind === KIND_FREE || kind === KIND_OUTER) {
         // The edge is tight now: use it directly (the formulation re-scans its outer end).
-        this.allow(x);
-        const i = this.ei[x] as number;
-        const fromI = label[this.top(i)] === 1;
-        if (this.useTightEdge(fromI ? i : (this.ej[x] as number), fromI ? 2 * x + 1 : 2 * x)) return 'changed';
+        const k = (kind === KIND_FREE ? this.bestFree[x] : this.bestOuter[x]) as number;
+        this.allow(k);
+        const v = kind === KIND_FREE ? this.other(k, x) : x;
+        const p = this.ei[k] === v ? 2 * k + 1 : 2 * k;
+        if (this.useTightEdge(v, p)) return 'changed';
+        if (kind === KIND_OUTER && label[this.top(x)] === 1) this.recomputeOuter(x);
       } else {
         this.expandBlossom(x, false);
       }
@@ -757,9 +831,13 @@ class BlossomSolver {
     (this.level as Float64Array)[v] = -Infinity;
     const { to, weight } = (this.lazy as LazyEdges).fetch(v);
     for (let i = 0; i < to.length; i++) {
-      const k = this.addEdge(v, to[i] as number, weight[i] as number);
+      const u = to[i] as number;
+      const k = this.addEdge(v, u, weight[i] as number);
       if (this.slack(k) < 0) throw new Error('solveMaxWeightMatching: a fetched edge violates its level');
-      this.edgeEvent(k);
+      const bu = this.top(u);
+      if (bu === this.top(v)) continue;
+      if (this.label[bu] === 1) this.offerOuter(v, k);
+      else if (this.label[bu] === 0) this.offerFree(u, k);
     }
   }
 
