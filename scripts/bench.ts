@@ -5,11 +5,13 @@
  *       unnest in one transaction), rows/s, in-process and over HTTP;
  *   (b) a plain COPY of the same 100 000 readings into the same table with psql's \copy, and the
  *       ratio import / COPY;
- *   (c) GET /api/lots/:id/summary of the 100 000-part lot, median of several runs, ms.
+ *   (c) GET /api/lots/:id/summary of the 100 000-part lot, median of several runs, ms;
+ *   (d) 500 bin labels rendered into one PDF (ms, bytes).
  * Targets: import ≥ 50 000 rows/s, within 3× of COPY, summary < 150 ms. Prints figures only; it
  * asserts nothing.
  */
 import 'reflect-metadata';
+import { benchBinLabels } from './bench-labels.ts';
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
@@ -280,6 +282,8 @@ async function main() {
       n = res.body.n;
     }
 
+    const labels = await benchBinLabels(500);
+
     const imp = median(importMs);
     const copy = median(copyMs);
     const rowsPerS = (ms: number) => Math.round((ROWS / ms) * 1000);
@@ -293,6 +297,7 @@ async function main() {
       `      ratio import / COPY    ${(imp / copy).toFixed(2)}×                      target ≤ 3×  ${imp / copy <= 3 ? 'met' : 'MISSED'}`,
       `  (c) summary, n = ${n.toLocaleString('en')}  ${median(viaHttp).toFixed(1).padStart(6)} ms over HTTP, ${median(direct).toFixed(1)} ms in-process   target < 150 ms  ${median(viaHttp) < 150 ? 'met' : 'MISSED'}`,
       `      of which fetching the two columns: ${median(fetchOnly).toFixed(1)} ms`,
+      `  (d) bin labels, 500 in one PDF  ${labels.ms.toFixed(0).padStart(6)} ms  ${(labels.bytes / 1024).toFixed(0)} kB   target < 3,000 ms  ${labels.ms < 3000 ? 'met' : 'MISSED'}`,
       `  runs (ms): import ${importMs.map((x) => x.toFixed(0)).join(', ')}; http ${httpMs.map((x) => x.toFixed(0)).join(', ')}; copy ${copyMs.map((x) => x.toFixed(0)).join(', ')}; summary ${viaHttp.map((x) => x.toFixed(0)).join(', ')}`,
       '',
     ];

@@ -315,6 +315,7 @@ class BlossomSolver {
   /** Queues S-vertex v for scanning and, without maxCardinality, the time its dual reaches 0. */
   private becameOuter(v: number): void {
     this.queue.push(v);
+    this.bestOuter[v] = -1;
     if (!this.maxCardinality) this.events.push(this.now + this.vDual(v), 8 * v + KIND_VERTEX);
     const level = this.level;
     if (level !== null && (level[v] as number) > -Infinity) {

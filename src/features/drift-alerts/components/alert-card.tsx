@@ -9,7 +9,7 @@ const CHECK_LABEL = { ks: 'Distribution differs', median: 'Median shifted', bimo
 
 function Figures({ f }: { f: DriftAlertRow['figures'] }) {
   const rows: [string, string][] = [
-    ['Readings (lot / history)', `${f.n} / ${f.historyN}${f.historyLots ? ` from ${f.historyLots} lots` : ''}`],
+    ['Readings (lot / history)', `${f.n} / ${f.historyN}${f.historyLots ? ` from ${f.historyLots} lot${f.historyLots === 1 ? '' : 's'}` : ''}`],
     ['KS D, p', f.ks ? `${f.ks.d.toFixed(3)}, ${f.ks.pValue < 0.0001 ? '< 0.0001' : f.ks.pValue.toFixed(4)}` : '—'],
     ['Median (lot / history)', `${f.median.lot.toFixed(1)} / ${f.median.history?.toFixed(1) ?? '—'}`],
     ['Median shift', f.median.shiftPct !== null ? `${f.median.shiftPct > 0 ? '+' : ''}${f.median.shiftPct.toFixed(1)} %${f.median.shiftIqr !== null ? ` (${f.median.shiftIqr.toFixed(2)} IQR)` : ''}` : '—'],

@@ -33,7 +33,7 @@ export function DistributionChart({ distributions, limits }: { distributions: No
             <Legend wrapperStyle={{ fontSize: 12 }} formatter={(value) => <span style={{ color: '#1f2a33' }}>{value}</span>} />
             {([limits.hfeMin, limits.hfeMax] as const).map((v, i) =>
               v === null ? null : (
-                <ReferenceLine key={v} x={v} stroke="#b3261e" strokeDasharray="6 4" ifOverflow="extendDomain" label={{ value: `${i === 0 ? 'min' : 'max'} ${v}`, fontSize: 11, fill: '#b3261e', position: i === 0 ? 'insideTopRight' : 'insideTopLeft' }} />
+                <ReferenceLine key={v} x={v} stroke="#b3261e" strokeDasharray="6 4" ifOverflow="extendDomain" label={{ value: `${i === 0 ? 'min' : 'max'} ${v}`, fontSize: 11, fill: '#b3261e', position: i === 0 ? 'insideTopLeft' : 'insideTopRight' }} />
               ),
             )}
             {lots.map((l, j) => {
