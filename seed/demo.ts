@@ -4,6 +4,7 @@ import { recordAudit } from '../server/modules/audit/audit.service.ts';
 import { User } from '../server/modules/users/user.entity.ts';
 import { seedDemoCatalog } from './demo-catalog.ts';
 import { seedDemoHistory } from './demo-history.ts';
+import { seedDemoStock } from './demo-stock.ts';
 import { DEMO_PASSWORD, DEMO_USERS } from './demo-users.ts';
 
 /**
@@ -31,5 +32,6 @@ export async function seedDemo(ds: DataSource, log: (l: string) => void = () => 
   if (created) log(`Demo scenario: created ${created} demo users.`);
   created += await seedDemoCatalog(ds, log);
   created += await seedDemoHistory(ds, log);
+  created += await seedDemoStock(ds, log);
   return { created };
 }

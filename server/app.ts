@@ -30,6 +30,7 @@ import { measurementsRouter } from './modules/measurements/measurements.routes.t
 import { samplingRouter } from './modules/sampling/sampling.routes.ts';
 import { binsRouter } from './modules/bins/bins.routes.ts';
 import { supplierQualityRouter } from './modules/supplier-quality/supplier-quality.routes.ts';
+import { pairingRouter } from './modules/pairing/pairing.routes.ts';
 
 export interface AppOptions {
   dataSource: DataSource;
@@ -97,6 +98,8 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir, ma
   api.use(benchRouter(ds));
   // Bins: full paths (/containers…, /stock, /lots/:id/screening…, /labels/bins.pdf).
   api.use(binsRouter(ds));
+  // Pairing: full paths (/pairing/preview, /pairing/stock, /kits…, /lots/:id/kits).
+  api.use(pairingRouter(ds));
   // Suppliers area: full paths (/scorecards…, /drift-alerts…, /ncrs…, /order-plans…).
   api.use(supplierQualityRouter(ds, { dataDir: config.dataDir, transport, from: config.smtp.from }));
   api.use('/lots', lotsRouter(ds, { dataDir: config.dataDir }));

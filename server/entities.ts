@@ -18,6 +18,7 @@ import { ScreeningSetupRow } from './modules/bins/screening-setup.entity.ts';
 import { StockMovement } from './modules/bins/stock-movement.entity.ts';
 import { DriftAlert, DriftCheck } from './modules/supplier-quality/drift-alert.entity.ts';
 import { Ncr } from './modules/supplier-quality/ncr.entity.ts';
+import { KitPart, KitRequest, KitSet } from './modules/pairing/kit.entity.ts';
 
 /** Every entity class, registered with the DataSource explicitly (no globs). */
-export const entities = [User, AuditEntry, PartType, GainBinSchemeVersion, GainBinRow, Supplier, SupplierContact, SupplierPart, Lot, LotDocument, SiteSetting, OutgoingMail, OutgoingMailAttachment, MeasurementSession, Measurement, InstrumentMapping, SwitchingStateRow, Disposition, Container, ContainerPosition, StockMovement, LabelPrint, ScreeningSetupRow, DriftCheck, DriftAlert, Ncr];
+export const entities = [User, AuditEntry, PartType, GainBinSchemeVersion, GainBinRow, Supplier, SupplierContact, SupplierPart, Lot, LotDocument, SiteSetting, OutgoingMail, OutgoingMailAttachment, MeasurementSession, Measurement, InstrumentMapping, SwitchingStateRow, Disposition, Container, ContainerPosition, StockMovement, LabelPrint, ScreeningSetupRow, DriftCheck, DriftAlert, Ncr, KitRequest, KitSet, KitPart];

@@ -6,25 +6,25 @@ const ctx = useTestApp();
 
 /** Every route of the Suppliers area; the writes carry a body that passes no validation on purpose. */
 const WRITES: [method: 'post' | 'patch', url: string][] = [
-  ['post', '/api/drift-alerts/1/acknowledge'],
+  ['post', '/api/drift-alerts/99999999/acknowledge'],
   ['post', '/api/ncrs'],
-  ['patch', '/api/ncrs/1'],
-  ['post', '/api/ncrs/1/send'],
-  ['post', '/api/ncrs/1/answer'],
-  ['post', '/api/ncrs/1/close'],
+  ['patch', '/api/ncrs/99999999'],
+  ['post', '/api/ncrs/99999999/send'],
+  ['post', '/api/ncrs/99999999/answer'],
+  ['post', '/api/ncrs/99999999/close'],
   ['post', '/api/order-plans'],
 ];
 const READS = [
   '/api/scorecards',
   '/api/scorecards.csv',
-  '/api/scorecards/1',
+  '/api/scorecards/99999999',
   '/api/drift-alerts',
-  '/api/drift-alerts/1',
+  '/api/drift-alerts/99999999',
   '/api/ncrs',
-  '/api/ncrs/draft?lotId=1',
-  '/api/ncrs/1',
-  '/api/ncrs/1/report.pdf',
-  '/api/ncrs/1/answer-document',
+  '/api/ncrs/draft?lotId=99999999',
+  '/api/ncrs/99999999',
+  '/api/ncrs/99999999/report.pdf',
+  '/api/ncrs/99999999/answer-document',
   '/api/order-plans/00000000-0000-0000-0000-000000000000',
 ];
 

@@ -5,11 +5,13 @@ import type { Page } from '../../../shared/api/users.ts';
 import { checkReading, limitFlags, type RawReading, type Reading } from '../../../shared/domain/inspection/index.ts';
 import { normaliseHfe, normaliseVbeMv } from '../../../shared/domain/normalise/index.ts';
 import { AppError } from '../../http/app-error.ts';
+import { isUniqueViolation } from '../../http/route-params.ts';
 import { recordAudit } from '../audit/audit.service.ts';
 import { assertMeasurable, loadLotContext } from '../bench/lot-context.ts';
 import type { PartType } from '../catalog/part-type.entity.ts';
+import { Lot } from '../lots/lot.entity.ts';
 import { Measurement } from './measurement.entity.ts';
-import type { MeasurementSession } from './measurement-session.entity.ts';
+import { MeasurementSession } from './measurement-session.entity.ts';
 import { markInspecting, openSessionOf } from './sessions.service.ts';
 import { placeRecordedReading } from '../bins/screening.service.ts';
 
@@ -86,30 +88,63 @@ async function insertReading(
 }
 
 /**
+ * The session, the lot and its part type a grid reading is recorded against, in two queries.
+ * A sampling reading takes a shared lock on the lot, so several benches record on one lot at
+ * once, while a disposition being proposed or signed (it locks the lot exclusively) waits for
+ * them and stops later readings. A screening reading (it hands out container positions) and a
+ * reading on a lot still "received" (it moves the lot to inspecting) take the exclusive lock, so
+ * no two transactions ever try to upgrade a shared lock. A repeated position is refused by the
+ * unique index on current readings (measurement_current_position_key), not by a lock.
+ */
+async function lockForRecording(m: EntityManager, lotId: number, sessionId: number): Promise<{ lot: Lot; partType: PartType; session: MeasurementSession }> {
+  const session = await m.findOne(MeasurementSession, { where: { id: sessionId, lotId }, relations: { lot: true } });
+  if (!session) {
+    // The rare refusals keep their order: unknown lot 404, closed lot 409, foreign session 422.
+    const { lot } = await loadLotContext(m, lotId);
+    assertMeasurable(lot);
+    await openSessionOf(m, lotId, sessionId);
+    throw AppError.notFound(`Session ${sessionId} of lot ${lotId}`);
+  }
+  const exclusive = session.mode === 'screen' || session.lot?.status === 'received';
+  const lot = await m
+    .createQueryBuilder(Lot, 'l')
+    .innerJoinAndSelect('l.partType', 'p')
+    .where('l.id = :lotId', { lotId })
+    .setLock(exclusive ? 'pessimistic_write' : 'pessimistic_read', undefined, ['l'])
+    .getOne();
+  if (!lot?.partType) throw AppError.notFound(`Lot ${lotId}`);
+  assertMeasurable(lot);
+  if (session.closedAt) {
+    throw AppError.conflict('The session is closed: start a new session to record more readings.', [{ field: 'sessionId', message: 'session closed' }]);
+  }
+  return { lot, partType: lot.partType, session };
+}
+
+/**
  * Records one part's reading from the entry grid. A position that already has a current reading
  * answers 409 naming `position`: change a reading only through a correction.
  */
 export async function recordMeasurement(ds: DataSource, actor: SessionUser, lotId: number, input: RecordMeasurementRequest): Promise<MeasurementRow> {
   const reading = readingOrThrow(input);
-  return ds.transaction(async (m) => {
-    const { lot, partType } = await loadLotContext(m, lotId, true);
-    assertMeasurable(lot);
-    const session = await openSessionOf(m, lotId, input.sessionId);
-    if (input.position > lot.quantity) {
-      throw AppError.unprocessable(`Position ${input.position} is beyond the lot of ${lot.quantity} parts.`, [{ field: 'position', message: `position must be 1–${lot.quantity}` }]);
-    }
-    const existing = await m.findOneBy(Measurement, { lotId, position: input.position, superseded: false });
-    if (existing) {
-      throw AppError.conflict(`Position ${input.position} already has a reading (#${existing.id}); record a correction to change it.`, [
-        { field: 'position', message: `position ${input.position} already measured` },
-      ]);
-    }
-    const saved = await insertReading(m, actor, session, partType, input.position, reading);
-    // Bins: in a screening session the part gets its bin, container and position in this transaction.
-    await placeRecordedReading(m, actor, session, saved);
-    await markInspecting(m, actor, lot);
-    return toRow(saved, { ambient_c: session.ambientC, creator_name: actor.name }, partType);
-  });
+  try {
+    return await ds.transaction(async (m) => {
+      const { lot, partType, session } = await lockForRecording(m, lotId, input.sessionId);
+      if (input.position > lot.quantity) {
+        throw AppError.unprocessable(`Position ${input.position} is beyond the lot of ${lot.quantity} parts.`, [{ field: 'position', message: `position must be 1–${lot.quantity}` }]);
+      }
+      const saved = await insertReading(m, actor, session, partType, input.position, reading);
+      // Bins: in a screening session the part gets its bin, container and position in this transaction.
+      await placeRecordedReading(m, actor, session, saved);
+      await markInspecting(m, actor, lot);
+      return toRow(saved, { ambient_c: session.ambientC, creator_name: actor.name }, partType);
+    });
+  } catch (e) {
+    if (!isUniqueViolation(e, 'measurement_current_position_key')) throw e;
+    const existing = await ds.getRepository(Measurement).findOneBy({ lotId, position: input.position, superseded: false });
+    throw AppError.conflict(`Position ${input.position} already has a reading${existing ? ` (#${existing.id})` : ''}; record a correction to change it.`, [
+      { field: 'position', message: `position ${input.position} already measured` },
+    ]);
+  }
 }
 
 /**

@@ -606,7 +606,16 @@ class BlossomSolver {
     for (const x of tops) this.leaves(x, vertices);
     for (const b of wasOuterZero) this.expandBlossom(b, true);
     for (const x of vertices) {
-      for (const p of this.adj[x] as number[]) this.allowEdge[p >> 1] = 0;
+      for (const p of this.adj[x] as number[]) {
+        this.allowEdge[p >> 1] = 0;
+        // An unlabelled neighbour whose best edge came from x: x no longer moves its dual, so
+        // that edge's event time is stale and another edge may now be first.
+        const w = this.endpoint[p] as number;
+        const bw = this.top(w);
+        if (this.label[bw] !== 0 || bw === this.top(x)) continue;
+        const k = this.bestFree[w] as number;
+        if (k !== -1 && !this.isFreeEdge(w, k)) this.recomputeFree(w);
+      }
       this.recomputeFree(x);
     }
   }

@@ -57,3 +57,15 @@ export function collectNeighbours(it: PairItems, a: number, out: number[]): numb
   }
   return out;
 }
+
+/** Calls visit(a, b) once for every compatible pair a < b, scanning only hFE windows. */
+export function forEachCompatiblePair(it: PairItems, visit: (a: number, b: number) => void): void {
+  const t = it.hfeTolerancePct;
+  for (let a = 0; a < it.n; a++) {
+    const ha = it.hLo[a] as number;
+    for (let b = a + 1; b < it.n; b++) {
+      if (!hfeWithinTolerance(ha, it.hLo[b] as number, t)) break;
+      if (itemsCompatible(it, a, b)) visit(a, b);
+    }
+  }
+}

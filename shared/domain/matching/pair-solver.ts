@@ -3,8 +3,10 @@ import { type LazyEdges, solveMaxWeightMatching } from './blossom.ts';
 import { type PairItems, collectNeighbours, itemsCompatible, itemsMismatch } from './items.ts';
 import { hfeWithinTolerance } from './tolerance.ts';
 
-/** Cheapest compatible edges each item brings into the first, sparse graph. */
-const NEAREST = 8;
+/** Cheapest compatible edges per item in the graph of the LP relaxation (step 3). */
+const NARROW = 8;
+/** … and in the graph the blossom algorithm starts from (step 4). */
+const WIDE = 64;
 
 export interface PairSolution {
   /** Matched item pairs [a, b] with a < b. */
@@ -31,8 +33,8 @@ export function mismatchScale(n: number): number {
  * 1. Objective: minimise Σq + P·(unmatched items), q = round(mismatch · S) ∈ [0, 2S], P = n·S + 1.
  *    Matching one more pair saves 2P, more than any difference in Σq (≤ (n/2)·2S), so the optimum
  *    has maximum cardinality first and minimum Σq second.
- * 2. Sparse graph: every item's NEAREST cheapest compatible edges. d_a, the NEAREST-th cheapest
- *    cost at a, bounds every left-out edge at a from below.
+ * 2. Sparse graphs: every item's NARROW (for step 3) or WIDE (step 4) cheapest compatible edges;
+ *    d_a, the k-th cheapest cost at a, bounds every left-out edge at a from below.
  * 3. LP relaxation (solveRelaxation): an optimal half-integral matching and duals pi from a
  *    bipartite assignment. The duals are checked on every left-out edge (pi_a + pi_b ≤ q; an item
  *    with pi_a ≤ d_a/2 needs no check) and failing edges are added until they hold, so the
@@ -42,6 +44,7 @@ export function mismatchScale(n: number): number {
  *    that every missing edge a–b has pi_a + pi_b ≤ (d_a + d_b)/2 ≤ q. The algorithm ends with a
  *    matching and duals that satisfy the optimality conditions on the full graph (Edmonds'
  *    matching polytope theorem), so the matching is optimal there.
+ * Compatible pairs are found by scanning hFE windows of the hFE-sorted items, never all n² pairs.
  */
 export function solveMaxPairs(it: PairItems): PairSolution {
   const n = it.n;
@@ -51,29 +54,41 @@ export function solveMaxPairs(it: PairItems): PairSolution {
   const costOf = (a: number, b: number): number => Math.round(itemsMismatch(it, a, b) * S);
   const keyOf = (a: number, b: number): number => (a < b ? a * n + b : b * n + a);
 
-  // 2. The NEAREST cheapest compatible edges of every item (one sweep over the hFE windows).
-  const topQ = new Float64Array(n * NEAREST);
-  const topJ = new Int32Array(n * NEAREST);
+  // 2. The WIDE cheapest compatible edges of every item, in one sweep over the hFE windows
+  //    (a bounded max-heap per item), then sorted by cost.
+  const topQ = new Float64Array(n * WIDE);
+  const topJ = new Int32Array(n * WIDE);
   const count = new Int32Array(n);
-  const worstQ = new Float64Array(n).fill(Infinity);
-  const worstAt = new Int32Array(n);
   const offer = (a: number, b: number, q: number): void => {
-    const base = a * NEAREST;
-    const c = count[a] as number;
-    if (c < NEAREST) {
-      topQ[base + c] = q;
-      topJ[base + c] = b;
-      count[a] = c + 1;
-      if (c + 1 < NEAREST) return;
+    const base = a * WIDE;
+    let c = count[a] as number;
+    let i: number;
+    if (c < WIDE) {
+      i = c;
+      count[a] = ++c;
+      while (i > 0) {
+        const parent = (i - 1) >> 1;
+        if ((topQ[base + parent] as number) >= q) break;
+        topQ[base + i] = topQ[base + parent] as number;
+        topJ[base + i] = topJ[base + parent] as number;
+        i = parent;
+      }
     } else {
-      if (q >= (worstQ[a] as number)) return;
-      topQ[base + (worstAt[a] as number)] = q;
-      topJ[base + (worstAt[a] as number)] = b;
+      if (q >= (topQ[base] as number)) return;
+      i = 0;
+      for (;;) {
+        const l = 2 * i + 1;
+        if (l >= WIDE) break;
+        const r = l + 1;
+        const child = r < WIDE && (topQ[base + r] as number) > (topQ[base + l] as number) ? r : l;
+        if ((topQ[base + child] as number) <= q) break;
+        topQ[base + i] = topQ[base + child] as number;
+        topJ[base + i] = topJ[base + child] as number;
+        i = child;
+      }
     }
-    let w = 0;
-    for (let s = 1; s < NEAREST; s++) if ((topQ[base + s] as number) > (topQ[base + w] as number)) w = s;
-    worstAt[a] = w;
-    worstQ[a] = topQ[base + w] as number;
+    topQ[base + i] = q;
+    topJ[base + i] = b;
   };
   let edgesCompatible = 0;
   const t = it.hfeTolerancePct;
@@ -88,43 +103,68 @@ export function solveMaxPairs(it: PairItems): PairSolution {
       offer(b, a, q);
     }
   }
-  const bound = new Float64Array(n);
-  for (let a = 0; a < n; a++) bound[a] = (count[a] as number) < NEAREST ? Infinity : (worstQ[a] as number);
+  // Sort each item's list by cost; d_k(a) = k-th cheapest cost (Infinity if a has fewer edges).
+  const order: number[] = [];
+  const boundOf = (k: number): Float64Array => {
+    const d = new Float64Array(n);
+    for (let a = 0; a < n; a++) d[a] = (count[a] as number) < k ? Infinity : (topQ[a * WIDE + k - 1] as number);
+    return d;
+  };
+  for (let a = 0; a < n; a++) {
+    const base = a * WIDE;
+    const c = count[a] as number;
+    order.length = 0;
+    for (let s = 0; s < c; s++) order.push(s);
+    order.sort((x, y) => (topQ[base + x] as number) - (topQ[base + y] as number));
+    const q = order.map((s) => topQ[base + s] as number);
+    const j = order.map((s) => topJ[base + s] as number);
+    for (let s = 0; s < c; s++) {
+      topQ[base + s] = q[s] as number;
+      topJ[base + s] = j[s] as number;
+    }
+  }
 
   // The graph the solvers hold: adjacency lists for membership tests, keys for the edge list.
   const held: number[][] = [];
   for (let a = 0; a < n; a++) held.push([]);
   const mark = new Int32Array(n).fill(-1);
-  let keys: number[] = [];
+  let stamp = 0;
+  const keys: number[] = [];
   const hold = (a: number, b: number): void => {
     (held[a] as number[]).push(b);
     (held[b] as number[]).push(a);
     keys.push(keyOf(a, b));
   };
-  for (let a = 0; a < n; a++) {
-    const base = a * NEAREST;
-    const own = held[a] as number[];
-    for (const b of own) mark[b] = a;
-    for (let s = 0; s < (count[a] as number); s++) {
-      const b = topJ[base + s] as number;
-      if (mark[b] === a) continue;
-      mark[b] = a;
-      hold(a, b);
+  /** Holds the first k entries of every item's sorted list. */
+  const holdNearest = (k: number): void => {
+    for (let a = 0; a < n; a++) {
+      const base = a * WIDE;
+      const st = ++stamp;
+      for (const b of held[a] as number[]) mark[b] = st;
+      const c = Math.min(k, count[a] as number);
+      for (let s = 0; s < c; s++) {
+        const b = topJ[base + s] as number;
+        if (mark[b] === st) continue;
+        mark[b] = st;
+        hold(a, b);
+      }
     }
-  }
+  };
   const scratch: number[] = [];
-  /** Compatible neighbours of a not yet held, marked with stamp a. */
-  const missing = (a: number, stamp: number): number[] => {
-    for (const b of held[a] as number[]) mark[b] = stamp;
+  /** Compatible neighbours of a that the graph does not hold yet. */
+  const missing = (a: number): number[] => {
+    const st = ++stamp;
+    for (const b of held[a] as number[]) mark[b] = st;
     scratch.length = 0;
     collectNeighbours(it, a, scratch);
     const out: number[] = [];
-    for (const b of scratch) if (mark[b] !== stamp) out.push(b);
+    for (const b of scratch) if (mark[b] !== st) out.push(b);
     return out;
   };
-  let stampBase = n;
 
-  // 3. The LP relaxation, until its duals hold on the full graph.
+  // 3. The LP relaxation on the NARROW graph, until its duals hold on the full graph.
+  holdNearest(NARROW);
+  let bound = boundOf(NARROW);
   let rounds = 0;
   let lp: Relaxation;
   for (;;) {
@@ -135,20 +175,19 @@ export function solveMaxPairs(it: PairItems): PairSolution {
     for (let a = 0; a < n; a++) {
       const pa = lp.pi[a] as number;
       if (pa <= (bound[a] as number) / 2) continue;
-      for (const b of missing(a, stampBase++)) {
-        if (costOf(a, b) < pa + (lp.pi[b] as number)) {
-          mark[b] = stampBase - 1;
-          hold(a, b);
-        }
+      for (const b of missing(a)) {
+        if (costOf(a, b) < pa + (lp.pi[b] as number)) hold(a, b);
       }
     }
     if (keys.length === before) break;
   }
   if (lp.oddCycles === 0) return result(lp.mate, keys.length);
 
-  // 4. Odd cycles left: blossom algorithm with lazily fetched edges. An item whose dual already
-  //    exceeds d/2 gets all its edges now. In max-weight form y = 4P − 4·pi, so the level
-  //    pi = d/2 is y = 4P − 2d.
+  // 4. Odd cycles left: blossom algorithm on the WIDE graph with lazily fetched edges. An item
+  //    whose dual already exceeds d/2 gets all its edges now. In max-weight form y = 4P − 4·pi,
+  //    so the level pi = d/2 is y = 4P − 2d.
+  holdNearest(WIDE);
+  bound = boundOf(WIDE);
   const level = new Float64Array(n);
   for (let a = 0; a < n; a++) {
     const d = bound[a] as number;
@@ -156,7 +195,7 @@ export function solveMaxPairs(it: PairItems): PairSolution {
       level[a] = -Infinity;
     } else if ((lp.pi[a] as number) > d / 2) {
       level[a] = -Infinity;
-      for (const b of missing(a, stampBase++)) hold(a, b);
+      for (const b of missing(a)) hold(a, b);
     } else {
       level[a] = 4 * P - 2 * d;
     }
@@ -165,7 +204,7 @@ export function solveMaxPairs(it: PairItems): PairSolution {
   const exact = solveFromRelaxation(n, g.edgeA, g.edgeB, g.cost, P, lp, {
     level,
     fetch(a) {
-      const to = missing(a, stampBase++);
+      const to = missing(a);
       const weight: number[] = [];
       for (const b of to) {
         hold(a, b);
@@ -283,22 +322,18 @@ function solveFromRelaxation(
 ): { mate: Int32Array } {
   const m = edgeA.length;
   const weight = new Float64Array(m);
-  const edgeOf = new Map<number, number>();
+  const mateEdge = new Int32Array(n).fill(-1);
   for (let e = 0; e < m; e++) {
     weight[e] = 2 * (2 * P - (cost[e] as number));
-    edgeOf.set((edgeA[e] as number) * n + (edgeB[e] as number), e);
-  }
-  const mateEdge = new Int32Array(n).fill(-1);
-  const dual = new Float64Array(n);
-  for (let a = 0; a < n; a++) {
-    dual[a] = 2 * (2 * P - 2 * (lp.pi[a] as number));
-    const b = lp.mate[a] as number;
-    if (b > a) {
-      const e = edgeOf.get(a * n + b) as number;
+    const a = edgeA[e] as number;
+    const b = edgeB[e] as number;
+    if (lp.mate[a] === b) {
       mateEdge[a] = e;
       mateEdge[b] = e;
     }
   }
+  const dual = new Float64Array(n);
+  for (let a = 0; a < n; a++) dual[a] = 2 * (2 * P - 2 * (lp.pi[a] as number));
   const res = solveMaxWeightMatching(
     { nVertex: n, edgeI: edgeA, edgeJ: edgeB, weight },
     { start: { mateEdge, dual }, lazyEdges },

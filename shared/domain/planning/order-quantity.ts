@@ -176,6 +176,9 @@ export function simulatedLot(history: readonly PlanPart[], seed: number): { pref
  * the bracket is then bisected, starting from the median threshold of the lots already done.
  * P(sets ≥ N | Q) is the share of simulated lots whose threshold is ≤ Q (the step curve), and
  * the answer is its smallest Q with P ≥ confidence. The same seed gives the same answer.
+ * The two properties hold for an exact matching (every pair solve, and quads within
+ * matchSets' exact component size); with a heuristic matching the search still ends, and the
+ * threshold is the one its probes bracket.
  *
  * A generator: it yields progress after every simulated lot and returns the result.
  * Randomness comes only from `rng`; `match` is the matching function.

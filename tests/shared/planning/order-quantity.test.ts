@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { hfeWithinTolerance } from '../../../shared/domain/matching/tolerance.ts';
+import { hfeWithinTolerance, matchSets } from '../../../shared/domain/matching/index.ts';
 import {
   mulberry32,
   orderPlanSteps,
@@ -37,7 +37,29 @@ const vbe = normalSample(8, 240, 650, 4);
 const history: PlanPart[] = hfe.map((h, i) => ({ hfe: h, vbeMv: vbe[i]! }));
 const base = { history, setsWanted: 30, setSize: 2 as const, hfeTolerancePct: 0.5, vbeToleranceMv: 1000, confidence: 0.9, simulations: 60 };
 
+/** The real matching (shared/domain/matching), as the server runs it. */
+const realMatching: SetMatcher = (parts, t) => {
+  const r = matchSets(
+    parts.map((p, i) => ({ id: i, polarity: 'NPN' as const, hfe: p.hfe, vbeMv: p.vbeMv })),
+    { hfeTolerancePct: t.hfeTolerancePct, vbeToleranceMv: t.vbeToleranceMv, setSize: t.setSize, mode: 'same' },
+  );
+  return { sets: r.sets.length, leftover: r.unmatched as number[] };
+};
+
 describe('planOrderQuantity', () => {
+  it('with the real matchSets gives the same answer as the exact hFE-only matcher when Vbe does not bind', () => {
+    const a = planOrderQuantity(base, mulberry32(11), pairsByHfe);
+    const b = planOrderQuantity(base, mulberry32(11), realMatching);
+    expect(b.quantity).toBe(a.quantity);
+    expect(b.curve).toEqual(a.curve);
+  });
+
+  it('with the real matchSets, a binding Vbe tolerance needs more parts than hFE alone', () => {
+    const loose = planOrderQuantity(base, mulberry32(12), realMatching);
+    const tight = planOrderQuantity({ ...base, vbeToleranceMv: 1 }, mulberry32(12), realMatching);
+    expect(tight.quantity!).toBeGreaterThan(loose.quantity!);
+  });
+
   it('is reproducible: the same seed gives the same answer', () => {
     const a = planOrderQuantity(base, mulberry32(42), pairsByHfe);
     const b = planOrderQuantity(base, mulberry32(42), pairsByHfe);
