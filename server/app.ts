@@ -12,6 +12,7 @@ import { readConfig, type ServerConfig } from './config.ts';
 import { csrfProtection } from './http/csrf.ts';
 import { errorHandler, notFoundHandler } from './http/error-handler.ts';
 import { requireAuth } from './http/guards.ts';
+import { guardStoreErrors, throttleTouch } from './http/session-store.ts';
 import { auditRouter } from './modules/audit/audit.routes.ts';
 import { authRouter } from './modules/auth/auth.routes.ts';
 import { createPassport } from './modules/auth/passport.ts';
@@ -31,6 +32,7 @@ import { samplingRouter } from './modules/sampling/sampling.routes.ts';
 import { binsRouter } from './modules/bins/bins.routes.ts';
 import { supplierQualityRouter } from './modules/supplier-quality/supplier-quality.routes.ts';
 import { pairingRouter } from './modules/pairing/pairing.routes.ts';
+import { biasRouter } from './modules/bias/bias.routes.ts';
 
 export interface AppOptions {
   dataSource: DataSource;
@@ -67,10 +69,13 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir, ma
   const pool = (ds.driver as unknown as { master: Pool }).master;
   const api = express.Router();
   api.use(express.json({ limit: '1mb' }));
+  // Before the session: health needs none, and answers its own 503 body when the database is down.
+  api.use('/health', healthRouter(ds));
   api.use(
     session({
       name: 'bw.sid',
-      store: new PgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 }),
+      // The stored expiry is renewed at most once a minute per session (see throttleTouch).
+      store: throttleTouch(guardStoreErrors(new PgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 })), 60_000),
       secret: config.sessionSecret,
       resave: false,
       saveUninitialized: false,
@@ -83,7 +88,6 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir, ma
   api.use(passport.session());
   api.use(csrfProtection);
 
-  api.use('/health', healthRouter(ds));
   api.use('/auth', authRouter(passport, { loginLimit: config.loginRateLimit }));
   api.use(requireAuth);
   api.use('/users', usersRouter(ds));
@@ -100,6 +104,8 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir, ma
   api.use(binsRouter(ds));
   // Pairing: full paths (/pairing/preview, /pairing/stock, /kits…, /lots/:id/kits).
   api.use(pairingRouter(ds));
+  // Fit-for-use: /bias/evaluate, /bias/fit-for-use, /bias/sources.
+  api.use(biasRouter(ds));
   // Suppliers area: full paths (/scorecards…, /drift-alerts…, /ncrs…, /order-plans…).
   api.use(supplierQualityRouter(ds, { dataDir: config.dataDir, transport, from: config.smtp.from }));
   api.use('/lots', lotsRouter(ds, { dataDir: config.dataDir }));

@@ -4,7 +4,15 @@ import path from 'node:path';
 export interface ServerConfig {
   port: number;
   dataDir: string;
-  db: { host: string; port: number; database: string; user: string; password?: string };
+  db: {
+    host: string;
+    port: number;
+    database: string;
+    user: string;
+    password?: string;
+    /** How long a new connection may take before the request fails (ms); 0 waits forever. */
+    connectTimeoutMs: number;
+  };
   smtp: {
     host: string;
     port: number;
@@ -32,6 +40,7 @@ export function readConfig(env: NodeJS.ProcessEnv = process.env): ServerConfig {
       database: env.BINWRIGHT_DB_NAME ?? 'binwright',
       user: env.BINWRIGHT_DB_USER ?? 'binwright',
       password: env.BINWRIGHT_DB_PASSWORD,
+      connectTimeoutMs: Number(env.BINWRIGHT_DB_CONNECT_TIMEOUT_MS ?? 5000),
     },
     smtp: {
       host: env.BINWRIGHT_SMTP_HOST ?? '127.0.0.1',

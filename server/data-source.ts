@@ -18,6 +18,9 @@ export function createDataSource(config = readConfig()): DataSource {
     synchronize: false,
     migrationsRun: false,
     logging: ['error'],
+    // pg Pool options. Without a connect timeout a request waits forever for a database host that
+    // accepts the connection but never answers; with it the request fails (503) after a few seconds.
+    extra: { connectionTimeoutMillis: config.db.connectTimeoutMs },
   });
 }
 

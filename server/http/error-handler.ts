@@ -1,6 +1,7 @@
 import type { ErrorRequestHandler, RequestHandler, Response } from 'express';
 import { PROBLEM_CONTENT_TYPE, type FieldError, type Problem } from '../../shared/api/problem.ts';
 import { AppError } from './app-error.ts';
+import { databaseUnavailable, isDatabaseUnavailable } from './database-errors.ts';
 
 const TITLES: Record<number, string> = {
   400: 'Bad request',
@@ -42,6 +43,13 @@ interface HttpishError {
 
 export const errorHandler: ErrorRequestHandler = (err: unknown, _req, res, next) => {
   if (res.headersSent) return next(err);
+  if (isDatabaseUnavailable(err)) {
+    // A clear 503 instead of a generic 500: the client may retry; the server itself keeps running.
+    const e = databaseUnavailable();
+    res.setHeader('Retry-After', '30');
+    if (!(err instanceof AppError)) console.error('[binwright] database unavailable:', (err as Error)?.message ?? err);
+    return sendProblem(res, e.status, e.code, e.detail);
+  }
   if (err instanceof AppError) return sendProblem(res, err.status, err.code, err.detail, err.errors);
   const e = err as HttpishError;
   const status = e.status ?? e.statusCode;

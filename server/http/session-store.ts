@@ -1,4 +1,26 @@
 import type { Store } from 'express-session';
+import { databaseUnavailable, isDatabaseUnavailable } from './database-errors.ts';
+
+/**
+ * Turns the store's connection errors into the 503 "database unavailable" problem. Without it a
+ * stopped PostgreSQL reached through its Unix socket fails with ENOENT, which express-session
+ * takes for "no such session" — the user would be shown as signed out instead of being told
+ * the database is down.
+ */
+export function guardStoreErrors<S extends Store>(store: S): S {
+  const wrap = (err: unknown) => (err && isDatabaseUnavailable(err) ? databaseUnavailable() : err);
+  const get = store.get.bind(store);
+  store.get = (sid, callback) => get(sid, (err, session) => callback(wrap(err), session));
+  const set = store.set.bind(store);
+  store.set = (sid, session, callback) => set(sid, session, (err) => callback?.(wrap(err)));
+  const destroy = store.destroy.bind(store);
+  store.destroy = (sid, callback) => destroy(sid, (err) => callback?.(wrap(err)));
+  if (store.touch) {
+    const touch = store.touch.bind(store);
+    store.touch = (sid, session, callback) => touch(sid, session, (err) => callback?.(wrap(err)));
+  }
+  return store;
+}
 
 /**
  * Limits the session store's `touch` to one per session per `intervalMs`. connect-pg-simple

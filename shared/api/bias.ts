@@ -22,7 +22,10 @@ export interface BiasEvaluateRequest extends BiasStage {
   vbeV: number;
 }
 
+export type BiasState = 'cutoff' | 'active' | 'saturated';
+
 export interface BiasEvaluateResponse {
+  state: BiasState;
   vth: number;
   rth: number;
   ib: number;
@@ -32,9 +35,8 @@ export interface BiasEvaluateResponse {
   ve: number;
   vc: number;
   vce: number;
+  /** True when VCE would fall below VCE(sat) (0.2 V); the values are then the saturated ones. */
   saturated: boolean;
-  /** 'active', 'saturated' or 'cut-off'. */
-  state: string;
 }
 
 /** POST /api/bias/fit-for-use — one of lotId or partTypeId. */
@@ -44,10 +46,10 @@ export interface FitForUseRequest {
   stage: BiasStage;
 }
 
+/** Spread of one quantity over the parts; p05/p95 by the R-7 rule. */
 export interface Spread {
   min: number;
   p05: number;
-  median: number;
   mean: number;
   p95: number;
   max: number;
@@ -70,12 +72,15 @@ export interface FitForUseResponse {
   saturatedCount: number;
   /** saturatedCount / n, 0…1. */
   saturatedShare: number;
-  cutOffCount: number;
+  cutoffCount: number;
+  cutoffShare: number;
   histograms: { ic: HistogramData; vce: HistogramData };
   /** VCE below which the stage counts as saturated, V — the line drawn on the VCE histogram. */
   saturationVceV: number;
-  /** The stage at the median hFE and Vbe. */
+  /** The stage at the median hFE and median Vbe of the parts. */
   typical: BiasEvaluateResponse;
+  /** Most parts used (the newest readings) when a part type has more. */
+  limit: number;
 }
 
 /** GET /api/bias/sources — what the fit-for-use check can run against. */

@@ -68,7 +68,7 @@ export function collectRoutes(app: Express): RouteInfo[] {
 }
 
 /** POST routes that compute an answer and change nothing (the request carries a body). */
-const READ_ONLY_POSTS = new Set(['POST /api/labels/parse', 'POST /api/pairing/preview', 'POST /api/bias/evaluate']);
+const READ_ONLY_POSTS = new Set(['POST /api/labels/parse', 'POST /api/pairing/preview', 'POST /api/bias/evaluate', 'POST /api/bias/fit-for-use']);
 
 function concrete(path: string): string {
   return path.replace(/:(\w+)/g, (_m, name: string) => (/id$/i.test(name) || name === 'version' || name === 'index' ? '1' : 'x'));

@@ -1,9 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { seedDemo } from '../../seed/demo.ts';
 import { seedDemoHistory } from '../../seed/demo-history.ts';
-import { agentFor, TEST_PASSWORD, useTestApp } from './helpers.ts';
-import { User } from '../../server/modules/users/user.entity.ts';
-import { hashPassword } from '../../server/modules/auth/password.ts';
+import { signedIn, useTestApp } from './helpers.ts';
 
 const ctx = useTestApp();
 
@@ -34,10 +32,10 @@ describe('demo supplier history', () => {
     expect(signers).toEqual([{ email: 'quality@harrowpoint.test' }]);
 
     // The buyer sees the history on the scorecards.
-    const buyer = await ctx.ds.getRepository(User).findOneByOrFail({ email: 'buyer@harrowpoint.test' });
-    await ctx.ds.getRepository(User).update({ id: buyer.id }, { passwordHash: await hashPassword(TEST_PASSWORD) });
-    const agent = await agentFor(ctx.app, buyer);
+    const { agent } = await signedIn(ctx, 'buyer');
     const res = await agent.get('/api/scorecards?search=KLC').expect(200);
-    expect(res.body.items[0]).toMatchObject({ supplierCode: 'KLC', lotsReceived: 12, accepted: 12, severity: 'normal' });
+    // Other areas' demo data may add lots of their own (e.g. screening lots still in inspection).
+    expect(res.body.items[0]).toMatchObject({ supplierCode: 'KLC', accepted: 12, rejected: 0, severity: 'normal' });
+    expect(res.body.items[0].lotsReceived).toBeGreaterThanOrEqual(12);
   });
 });

@@ -34,8 +34,11 @@ export function authRouter(passport: InstanceType<typeof Passport>, opts: { logi
       sendProblem(res, 429, 'too-many-attempts', 'Too many failed sign-ins for this e-mail. Wait 15 minutes and try again.'),
   });
 
-  r.get('/csrf', (req, res) => {
-    res.json({ csrfToken: issueCsrfToken(req) });
+  r.get('/csrf', (req, res, next) => {
+    const csrfToken = issueCsrfToken(req);
+    // Saved before answering: a token the store could not keep is an error (503 when the
+    // database is down), not a 200 carrying a token that no later request will match.
+    req.session.save((err) => (err ? next(err) : res.json({ csrfToken })));
   });
 
   r.post('/login', loginLimiter, async (req, res, next) => {

@@ -120,7 +120,9 @@ export async function listLots(ds: DataSource, q: LotQuery, now = new Date()): P
     qb.andWhere('(l.code ILIKE :s OR l.purchase_order ILIKE :s OR l.supplier_lot ILIKE :s)', { s: `%${q.search.replace(/[%_\\]/g, '\\$&')}%` });
   }
   qb.orderBy(SORT_COLUMN[q.sort], q.dir === 'desc' ? 'DESC' : 'ASC').addOrderBy('l.id', q.dir === 'desc' ? 'DESC' : 'ASC');
-  const [rows, total] = await qb.skip((q.page - 1) * q.pageSize).take(q.pageSize).getManyAndCount();
+  // offset/limit, not skip/take: the joins are many-to-one (one row per lot), so TypeORM's extra
+  // DISTINCT-ids query that skip/take adds for joins is not needed.
+  const [rows, total] = await qb.offset((q.page - 1) * q.pageSize).limit(q.pageSize).getManyAndCount();
   return { items: rows.map((l) => toLotRow(l, now)), total, page: q.page, pageSize: q.pageSize };
 }
 

@@ -5,7 +5,6 @@ import type { Page } from '../../../shared/api/users.ts';
 import { checkReading, limitFlags, type RawReading, type Reading } from '../../../shared/domain/inspection/index.ts';
 import { normaliseHfe, normaliseVbeMv } from '../../../shared/domain/normalise/index.ts';
 import { AppError } from '../../http/app-error.ts';
-import { isUniqueViolation } from '../../http/route-params.ts';
 import { recordAudit } from '../audit/audit.service.ts';
 import { assertMeasurable, loadLotContext } from '../bench/lot-context.ts';
 import type { PartType } from '../catalog/part-type.entity.ts';
@@ -57,7 +56,7 @@ function toRow(m: Measurement, extras: RowExtras, part: PartType): MeasurementRo
   };
 }
 
-async function insertReading(
+function readingRow(
   m: EntityManager,
   actor: SessionUser,
   session: MeasurementSession,
@@ -65,9 +64,9 @@ async function insertReading(
   position: number,
   reading: Reading,
   extra: { supersedesId?: string; correctionReason?: string } = {},
-): Promise<Measurement> {
+): Measurement {
   const { hfe25, vbeMv25 } = normalise(reading, session.ambientC, part);
-  const row = m.create(Measurement, {
+  return m.create(Measurement, {
     lotId: session.lotId,
     sessionId: session.id,
     position,
@@ -84,7 +83,38 @@ async function insertReading(
     correctionReason: extra.correctionReason ?? null,
     createdBy: actor.id,
   });
-  return m.save(row);
+}
+
+async function insertReading(
+  m: EntityManager,
+  actor: SessionUser,
+  session: MeasurementSession,
+  part: PartType,
+  position: number,
+  reading: Reading,
+  extra: { supersedesId?: string; correctionReason?: string } = {},
+): Promise<Measurement> {
+  return m.save(readingRow(m, actor, session, part, position, reading, extra));
+}
+
+/**
+ * Inserts a new reading unless its position already has a current one; then answers null.
+ * ON CONFLICT DO NOTHING (the unique index measurement_current_position_key decides), so a
+ * repeated scan is neither a failed statement nor an aborted transaction.
+ */
+async function insertIfPositionFree(
+  m: EntityManager,
+  actor: SessionUser,
+  session: MeasurementSession,
+  part: PartType,
+  position: number,
+  reading: Reading,
+): Promise<Measurement | null> {
+  const row = readingRow(m, actor, session, part, position, reading);
+  const res = await m.createQueryBuilder().insert().into(Measurement).values(row).orIgnore().returning(['id', 'created_at']).execute();
+  const inserted = (res.raw as { id: string; created_at: Date }[])[0];
+  if (!inserted) return null;
+  return Object.assign(row, { id: String(inserted.id), createdAt: inserted.created_at });
 }
 
 /**
@@ -94,10 +124,16 @@ async function insertReading(
  * them and stops later readings. A screening reading (it hands out container positions) and a
  * reading on a lot still "received" (it moves the lot to inspecting) take the exclusive lock, so
  * no two transactions ever try to upgrade a shared lock. A repeated position is refused by the
- * unique index on current readings (measurement_current_position_key), not by a lock.
+ * unique index on current readings (see insertIfPositionFree), not by a lock.
  */
 async function lockForRecording(m: EntityManager, lotId: number, sessionId: number): Promise<{ lot: Lot; partType: PartType; session: MeasurementSession }> {
-  const session = await m.findOne(MeasurementSession, { where: { id: sessionId, lotId }, relations: { lot: true } });
+  // A query builder, not findOne with relations: that would add TypeORM's DISTINCT-ids query.
+  const session = await m
+    .createQueryBuilder(MeasurementSession, 's')
+    .innerJoin('s.lot', 'sl')
+    .addSelect('sl.status')
+    .where('s.id = :sessionId AND s.lot_id = :lotId', { sessionId, lotId })
+    .getOne();
   if (!session) {
     // The rare refusals keep their order: unknown lot 404, closed lot 409, foreign session 422.
     const { lot } = await loadLotContext(m, lotId);
@@ -126,25 +162,23 @@ async function lockForRecording(m: EntityManager, lotId: number, sessionId: numb
  */
 export async function recordMeasurement(ds: DataSource, actor: SessionUser, lotId: number, input: RecordMeasurementRequest): Promise<MeasurementRow> {
   const reading = readingOrThrow(input);
-  try {
-    return await ds.transaction(async (m) => {
-      const { lot, partType, session } = await lockForRecording(m, lotId, input.sessionId);
-      if (input.position > lot.quantity) {
-        throw AppError.unprocessable(`Position ${input.position} is beyond the lot of ${lot.quantity} parts.`, [{ field: 'position', message: `position must be 1–${lot.quantity}` }]);
-      }
-      const saved = await insertReading(m, actor, session, partType, input.position, reading);
-      // Bins: in a screening session the part gets its bin, container and position in this transaction.
-      await placeRecordedReading(m, actor, session, saved);
-      await markInspecting(m, actor, lot);
-      return toRow(saved, { ambient_c: session.ambientC, creator_name: actor.name }, partType);
-    });
-  } catch (e) {
-    if (!isUniqueViolation(e, 'measurement_current_position_key')) throw e;
-    const existing = await ds.getRepository(Measurement).findOneBy({ lotId, position: input.position, superseded: false });
-    throw AppError.conflict(`Position ${input.position} already has a reading${existing ? ` (#${existing.id})` : ''}; record a correction to change it.`, [
-      { field: 'position', message: `position ${input.position} already measured` },
-    ]);
-  }
+  return ds.transaction(async (m) => {
+    const { lot, partType, session } = await lockForRecording(m, lotId, input.sessionId);
+    if (input.position > lot.quantity) {
+      throw AppError.unprocessable(`Position ${input.position} is beyond the lot of ${lot.quantity} parts.`, [{ field: 'position', message: `position must be 1–${lot.quantity}` }]);
+    }
+    const saved = await insertIfPositionFree(m, actor, session, partType, input.position, reading);
+    if (!saved) {
+      const existing = await m.findOneBy(Measurement, { lotId, position: input.position, superseded: false });
+      throw AppError.conflict(`Position ${input.position} already has a reading${existing ? ` (#${existing.id})` : ''}; record a correction to change it.`, [
+        { field: 'position', message: `position ${input.position} already measured` },
+      ]);
+    }
+    // Bins: in a screening session the part gets its bin, container and position in this transaction.
+    await placeRecordedReading(m, actor, session, saved);
+    await markInspecting(m, actor, lot);
+    return toRow(saved, { ambient_c: session.ambientC, creator_name: actor.name }, partType);
+  });
 }
 
 /**

@@ -61,7 +61,7 @@ export async function renderKitLabel(kit: KitDetail): Promise<{ pdf: Buffer; pay
     { font: 'Bold', text: kit.code, size: 15 },
     { font: 'Bold', text: kit.partNumbers.join(' + '), size: 10 },
     { font: 'Regular', text: `${kit.sets.length} ${unit}, ${kind} · ${kit.parts} parts`, size: 8 },
-    { font: 'Regular', text: `hFE ≤ ${fmtNum(kit.hfeTolerancePct, 1)} % · Vbe ≤ ${fmtNum(kit.vbeToleranceMv, 2)} mV (at 25 °C)`, size: 7.5 },
+    { font: 'Regular', text: `Matched within hFE ${fmtNum(kit.hfeTolerancePct, 1)} %, Vbe ${fmtNum(kit.vbeToleranceMv, 2)} mV (25 °C)`, size: 7.5 },
     ...(worst ? [{ font: 'Regular', text: `Worst set: hFE ${fmtNum(worst.hfeSpreadPct, 1)} %, ΔVbe ${fmtNum(worst.vbeSpreadMv, 2)} mV`, size: 7.5 }] : []),
     { font: 'Regular', text: `${kit.createdAt.slice(0, 10)} · ${kit.createdByName}`, size: 7 },
     { font: 'Regular', text: 'ESD sensitive: handle at an ESD-protected workstation.', size: 6.5 },

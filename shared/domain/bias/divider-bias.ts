@@ -21,7 +21,7 @@ export interface DividerStage {
 export interface DividerBiasInput extends DividerStage {
   /** DC current gain β = hFE of the part, dimensionless. */
   readonly hfe: number;
-  /** Base–emitter voltage of the part in V. */
+  /** Base–emitter voltage of the part in V (its magnitude, for a PNP part in the mirrored stage). */
   readonly vbeV: number;
 }
 

@@ -7,10 +7,10 @@ import { MinHeap } from './min-heap.ts';
  * Joris van Rantwijk's public-domain implementation (mwmatching.py, 2008). Variable names and the
  * order of the steps follow that formulation so the two can be read side by side.
  *
- * Differences that change speed but not results: typed arrays, neighbour lists in CSR form, and
- * per-stage bookkeeping that resets and scans only what the stage touched (labels, best edges,
- * allowed edges, labelled blossoms) instead of every vertex; the caller may start from a matching
- * and vertex duals of its own (a "warm start", see BlossomStart).
+ * The steps (grow, blossom, augment, expand; the four kinds of dual step δ1…δ4) are those of the
+ * formulation; the bookkeeping around them is organised for large sparse graphs (see
+ * BlossomSolver). The caller may also start from a matching and duals of its own (BlossomStart)
+ * and let the graph grow while the algorithm runs (LazyEdges).
  */
 
 /** A graph for the solver: vertices 0…nVertex−1, edge k joins edgeI[k] and edgeJ[k] with weight[k]. */
@@ -43,14 +43,18 @@ export interface BlossomStart {
 /**
  * Edges the graph does not hold yet, fetched when needed (without maxCardinality). The caller
  * vouches that every missing edge u–v has slack ≥ 0 as long as dual[u] ≥ level[u] and
- * dual[v] ≥ level[v] (e.g. level from a lower bound on the weight of u's missing edges). When an
- * outer vertex's dual falls to its level, fetch(v) returns v's missing edges (other end and
- * weight, none already in the graph), they are added, and level[v] becomes −Infinity. Then every
- * missing edge keeps a non-negative slack, so the result is the optimum of the full graph.
+ * dual[v] ≥ level[v] (e.g. level from an upper bound on the weight of u's missing edges). When an
+ * outer vertex's dual falls to its level, fetch(v) returns some of v's missing edges (other end
+ * and weight, none already in the graph) and v's new level (−Infinity once none is missing);
+ * they are added. Then every missing edge keeps a non-negative slack, so the result is the
+ * optimum of the full graph.
  */
 export interface LazyEdges {
   readonly level: Float64Array;
-  fetch(v: number): { to: number[]; weight: number[] };
+  /** The returned arrays are read at once and may be reused by the caller. */
+  fetch(v: number): { to: number[]; weight: number[]; level: number };
+  /** Expected total number of edges, to size the edge arrays once (optional). */
+  readonly capacity?: number;
 }
 
 export interface BlossomOptions {
@@ -88,7 +92,7 @@ const KIND_LEVEL = 3; // outer vertex x's dual reaches its lazy-edge level
 const KIND_OUTER = 4; // δ3: the best edge from outer vertex x to another outer blossom becomes tight
 
 /**
- * The state of one run; one method per step of the formulation. Three refinements, none of
+ * The state of one run; one method per step of the formulation. Four refinements, none of
  * which changes what a step does:
  * - Dual changes are applied lazily, as in the O(nm log n) versions of the algorithm (Galil,
  *   Micali & Gabow, SIAM J. Comput. 15 (1986) 120–130): `now` is the total dual change so far, a
@@ -104,6 +108,9 @@ const KIND_OUTER = 4; // δ3: the best edge from outer vertex x to another outer
  *   still alternating trees of tight edges rooted at free vertices, which is all a stage needs.
  * - Inner blossoms remember no per-vertex labels; when one is expanded, a child off the new path
  *   is labelled T if a tight edge joins it to an outer vertex, which is what those labels recorded.
+ * - The formulation's least-slack edges (bestedge) are kept per vertex: to each unlabelled vertex
+ *   from the outer vertices, and from each outer vertex to other outer blossoms, each with one
+ *   heap entry; when such an edge stops qualifying, the vertex's edges are scanned again.
  */
 class BlossomSolver {
   private readonly n: number;
@@ -116,7 +123,7 @@ class BlossomSolver {
   private readonly adj: number[][];
   private readonly level: Float64Array | null;
   private readonly mate: Int32Array;
-  /** Top-level blossoms only: 0 free of the forest, 1 outer (S), 2 inner (T); others stay 0. */
+  /** Of top-level blossoms: 0 outside the forest, 1 outer (S), 2 inner (T); meaningless below the top. */
   private readonly label: Int8Array;
   private readonly labelEnd: Int32Array;
   private readonly inBlossom: Int32Array;
@@ -162,10 +169,14 @@ class BlossomSolver {
     const m = ei.length;
     this.n = n;
     this.m = m;
-    this.ei = ei.slice();
-    this.ej = ej.slice();
-    this.wt = graph.weight.slice();
-    this.endpoint = new Int32Array(2 * m);
+    const cap = Math.max(m, Math.min(lazy?.capacity ?? 0, 1 << 24));
+    this.ei = new Int32Array(cap);
+    this.ei.set(ei);
+    this.ej = new Int32Array(cap);
+    this.ej.set(ej);
+    this.wt = new Float64Array(cap);
+    this.wt.set(graph.weight);
+    this.endpoint = new Int32Array(2 * cap);
     this.adj = [];
     for (let v = 0; v < n; v++) this.adj.push([]);
     for (let k = 0; k < m; k++) {
@@ -190,7 +201,7 @@ class BlossomSolver {
     this.dualVar = new Float64Array(2 * n);
     this.labelTime = new Float64Array(2 * n);
     this.timeRef = new Float64Array(n);
-    this.allowEdge = new Uint8Array(m);
+    this.allowEdge = new Uint8Array(cap);
     this.bestFree = new Int32Array(n).fill(-1);
     this.bestOuter = new Int32Array(n).fill(-1);
     this.treeOf = new Int32Array(2 * n).fill(-1);
@@ -256,21 +267,27 @@ class BlossomSolver {
     this.allowEdge[k] = 1;
   }
 
+  private growEdges(cap: number): void {
+    const ei = new Int32Array(cap);
+    ei.set(this.ei);
+    this.ei = ei;
+    const ej = new Int32Array(cap);
+    ej.set(this.ej);
+    this.ej = ej;
+    const wt = new Float64Array(cap);
+    wt.set(this.wt);
+    this.wt = wt;
+    const allow = new Uint8Array(cap);
+    allow.set(this.allowEdge);
+    this.allowEdge = allow;
+    const endpoint = new Int32Array(2 * cap);
+    endpoint.set(this.endpoint);
+    this.endpoint = endpoint;
+  }
+
   private addEdge(i: number, j: number, w: number): number {
     const k = this.m++;
-    if (k >= this.ei.length) {
-      const cap = Math.max(16, 2 * this.ei.length);
-      const grow = <T extends Int32Array | Float64Array | Uint8Array>(a: T, size: number): T => {
-        const b = new (a.constructor as new (len: number) => T)(size);
-        b.set(a);
-        return b;
-      };
-      this.ei = grow(this.ei, cap);
-      this.ej = grow(this.ej, cap);
-      this.wt = grow(this.wt, cap);
-      this.allowEdge = grow(this.allowEdge, cap);
-      this.endpoint = grow(this.endpoint, 2 * cap);
-    }
+    if (k >= this.ei.length) this.growEdges(Math.max(16, 2 * this.ei.length));
     this.ei[k] = i;
     this.ej[k] = j;
     this.wt[k] = w;
@@ -837,13 +854,15 @@ class BlossomSolver {
   }
 
   /** Adds v's missing edges (its dual just reached its level); each new edge may be an event. */
-  private fetchEdges(v: number): void {
-    (this.level as Float64Array)[v] = -Infinity;
-    const { to, weight } = (this.lazy as LazyEdges).fetch(v);
+  private fetchEdges(v: number, during = true): void {
+    const { to, weight, level } = (this.lazy as LazyEdges).fetch(v);
+    (this.level as Float64Array)[v] = level;
+    if (during && level > -Infinity) this.events.push(this.now + this.vDual(v) - level, 8 * v + KIND_LEVEL);
     for (let i = 0; i < to.length; i++) {
       const u = to[i] as number;
       const k = this.addEdge(v, u, weight[i] as number);
       if (this.slack(k) < 0) throw new Error('solveMaxWeightMatching: a fetched edge violates its level');
+      if (!during) continue;
       const bu = this.top(u);
       if (bu === this.top(v)) continue;
       if (this.label[bu] === 1) this.offerOuter(v, k);
@@ -853,6 +872,13 @@ class BlossomSolver {
 
   run(): BlossomSolution {
     const n = this.n;
+    // A vertex that starts below its level gets its edges before anything moves.
+    const level = this.level;
+    if (level !== null) {
+      for (let v = 0; v < n; v++) {
+        while ((this.dualVar[v] as number) < (level[v] as number)) this.fetchEdges(v, false);
+      }
+    }
     for (let v = 0; v < n; v++) {
       if (this.mate[v] !== -1) continue;
       // Without maxCardinality a free vertex with dual 0 already satisfies complementary

@@ -1,10 +1,11 @@
-/** Binary min-heap of (key, id) pairs; stale entries are the caller's to skip (lazy deletion). */
+/** Binary min-heap of (key, id) pairs in typed arrays; stale entries are the caller's to skip (lazy deletion). */
 export class MinHeap {
-  private keys: number[] = [];
-  private ids: number[] = [];
+  private keys = new Float64Array(64);
+  private ids = new Int32Array(64);
+  private count = 0;
 
   get size(): number {
-    return this.keys.length;
+    return this.count;
   }
 
   /** Key and id of the smallest entry; only valid when size > 0. */
@@ -17,16 +18,21 @@ export class MinHeap {
   }
 
   clear(): void {
-    this.keys.length = 0;
-    this.ids.length = 0;
+    this.count = 0;
   }
 
   push(key: number, id: number): void {
+    if (this.count === this.keys.length) {
+      const keys = new Float64Array(2 * this.count);
+      keys.set(this.keys);
+      this.keys = keys;
+      const ids = new Int32Array(2 * this.count);
+      ids.set(this.ids);
+      this.ids = ids;
+    }
     const keys = this.keys;
     const ids = this.ids;
-    let i = keys.length;
-    keys.push(key);
-    ids.push(id);
+    let i = this.count++;
     while (i > 0) {
       const parent = (i - 1) >> 1;
       if ((keys[parent] as number) <= key) break;
@@ -42,10 +48,13 @@ export class MinHeap {
   pop(): void {
     const keys = this.keys;
     const ids = this.ids;
-    const lastKey = keys.pop() as number;
-    const lastId = ids.pop() as number;
-    const size = keys.length;
-    if (size === 0) return;
+    const size = --this.count;
+    if (size <= 0) {
+      this.count = Math.max(0, size);
+      return;
+    }
+    const lastKey = keys[size] as number;
+    const lastId = ids[size] as number;
     let i = 0;
     for (;;) {
       const l = 2 * i + 1;

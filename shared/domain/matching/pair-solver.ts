@@ -151,15 +151,16 @@ export function solveMaxPairs(it: PairItems): PairSolution {
     }
   };
   const scratch: number[] = [];
-  /** Compatible neighbours of a that the graph does not hold yet. */
+  const missingBuf: number[] = [];
+  /** Compatible neighbours of a that the graph does not hold yet (a reused array). */
   const missing = (a: number): number[] => {
     const st = ++stamp;
     for (const b of held[a] as number[]) mark[b] = st;
     scratch.length = 0;
     collectNeighbours(it, a, scratch);
-    const out: number[] = [];
-    for (const b of scratch) if (mark[b] !== st) out.push(b);
-    return out;
+    missingBuf.length = 0;
+    for (const b of scratch) if (mark[b] !== st) missingBuf.push(b);
+    return missingBuf;
   };
 
   // 3. The LP relaxation on the NARROW graph, until its duals hold on the full graph.
@@ -183,34 +184,29 @@ export function solveMaxPairs(it: PairItems): PairSolution {
   }
   if (lp.oddCycles === 0) return result(lp.mate, keys.length);
 
-  // 4. Odd cycles left: blossom algorithm on the WIDE graph with lazily fetched edges. An item
-  //    whose dual already exceeds d/2 gets all its edges now. In max-weight form y = 4P − 4·pi,
-  //    so the level pi = d/2 is y = 4P − 2d.
+  // 4. Odd cycles left: blossom algorithm on the WIDE graph with lazily fetched edges (an item
+  //    whose dual already exceeds d/2 gets them before the start). In max-weight form
+  //    y = 4P − 4·pi, so the level pi = d/2 is y = 4P − 2d.
   holdNearest(WIDE);
   bound = boundOf(WIDE);
   const level = new Float64Array(n);
   for (let a = 0; a < n; a++) {
     const d = bound[a] as number;
-    if (d === Infinity) {
-      level[a] = -Infinity;
-    } else if ((lp.pi[a] as number) > d / 2) {
-      level[a] = -Infinity;
-      for (const b of missing(a)) hold(a, b);
-    } else {
-      level[a] = 4 * P - 2 * d;
-    }
+    level[a] = d === Infinity ? -Infinity : 4 * P - 2 * d;
   }
   const g = edgeArrays(n, keys, costOf);
+  const weightBuf: number[] = [];
   const exact = solveFromRelaxation(n, g.edgeA, g.edgeB, g.cost, P, lp, {
     level,
+    capacity: edgesCompatible,
     fetch(a) {
       const to = missing(a);
-      const weight: number[] = [];
+      weightBuf.length = 0;
       for (const b of to) {
         hold(a, b);
-        weight.push(2 * (2 * P - costOf(a, b)));
+        weightBuf.push(2 * (2 * P - costOf(a, b)));
       }
-      return { to, weight };
+      return { to, weight: weightBuf, level: -Infinity };
     },
   });
   return result(exact.mate, keys.length);

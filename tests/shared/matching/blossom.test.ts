@@ -1,6 +1,6 @@
 import { describe, it, expect } from 'vitest';
 import reference from 'edmonds-blossom-fixed';
-import { maxWeightMatching } from '../../../shared/domain/matching/index.ts';
+import { maxWeightMatching, solveMaxWeightMatching } from '../../../shared/domain/matching/index.ts';
 import { bruteForceMatching, matchingValue, mulberry32, randomGraph } from './helpers.ts';
 
 describe('maxWeightMatching (Edmonds blossom, Galil 1986 / van Rantwijk)', () => {
@@ -64,5 +64,65 @@ describe('maxWeightMatching (Edmonds blossom, Galil 1986 / van Rantwijk)', () =>
 
   it('on an empty edge list, matches nothing', () => {
     expect(maxWeightMatching([])).toEqual([]);
+  });
+});
+
+describe('solveMaxWeightMatching with lazily fetched edges', () => {
+  /**
+   * Starts from each vertex's 3 heaviest edges (ties by index); level = heaviest weight still
+   * missing at the vertex, so a missing edge u–v (weight ≤ both levels) keeps slack
+   * y_u + y_v − 2w ≥ 0 while y_u ≥ level_u and y_v ≥ level_v; fetch hands out the next 2.
+   */
+  function lazySolve(n: number, edges: [number, number, number][]): number[] {
+    const byVertex: [number, number][][] = Array.from({ length: n }, () => []);
+    for (const [i, j, w] of edges) {
+      byVertex[i]!.push([j, w]);
+      byVertex[j]!.push([i, w]);
+    }
+    for (const list of byVertex) list.sort((x, y) => y[1] - x[1] || x[0] - y[0]);
+    const held = new Set<string>();
+    const key = (a: number, b: number) => `${Math.min(a, b)},${Math.max(a, b)}`;
+    const initial: [number, number, number][] = [];
+    byVertex.forEach((list, v) => {
+      for (const [u, w] of list.slice(0, 3)) {
+        if (held.has(key(u, v))) continue;
+        held.add(key(u, v));
+        initial.push([v, u, w]);
+      }
+    });
+    const missingOf = (v: number) => byVertex[v]!.filter(([u]) => !held.has(key(u, v)));
+    const level = Float64Array.from({ length: n }, (_, v) => missingOf(v)[0]?.[1] ?? -Infinity);
+    const { mate } = solveMaxWeightMatching(
+      {
+        nVertex: n,
+        edgeI: Int32Array.from(initial, (e) => e[0]),
+        edgeJ: Int32Array.from(initial, (e) => e[1]),
+        weight: Float64Array.from(initial, (e) => e[2]),
+      },
+      {
+        lazyEdges: {
+          level,
+          fetch(v) {
+            const batch = missingOf(v).slice(0, 2);
+            for (const [u] of batch) held.add(key(u, v));
+            const rest = missingOf(v);
+            return { to: batch.map((e) => e[0]), weight: batch.map((e) => e[1]), level: rest[0]?.[1] ?? -Infinity };
+          },
+        },
+      },
+    );
+    return Array.from(mate);
+  }
+
+  it('on 200 seeded random graphs of 4–60 vertices, reaches the weight of the full graph', () => {
+    const rng = mulberry32(99);
+    for (let t = 0; t < 200; t++) {
+      const n = 4 + Math.floor(rng() * 57);
+      const edges = randomGraph(rng, n, 2 + rng() * 12, rng() < 0.5 ? 10 : 1000);
+      if (edges.length === 0) continue;
+      const lazy = matchingValue(lazySolve(n, edges), edges);
+      const full = matchingValue(maxWeightMatching(edges), edges);
+      expect(lazy.weight).toBe(full.weight);
+    }
   });
 });

@@ -1,0 +1,139 @@
+/**
+ * Client size figure for `npm run bench`: the JavaScript a browser downloads on the first load
+ * (the entry chunk and every chunk it imports statically, i.e. the `<script type="module">` and
+ * `<link rel="modulepreload">` of index.html, or the entry's static `imports` in Vite's
+ * manifest when the build writes one), raw and gzip-compressed (zlib level 9, as a server
+ * would serve it pre-compressed), beside the chunks loaded later (dynamic imports) and the CSS.
+ * Target: initial JavaScript under 250 kB gzip. Prints figures only.
+ *
+ * Standalone: `npx tsx --tsconfig tsconfig.server.json scripts/bench-bundle.ts [--build]`
+ * (folder from BINWRIGHT_DIST_DIR, default dist; --build runs `vite build` into it first).
+ */
+import fs from 'node:fs';
+import path from 'node:path';
+import { pathToFileURL } from 'node:url';
+import zlib from 'node:zlib';
+
+export interface BundleFile {
+  file: string;
+  bytes: number;
+  gzipBytes: number;
+}
+
+export interface BundleReport {
+  distDir: string;
+  /** How the first-load set was found. */
+  source: 'manifest' | 'index.html';
+  initial: BundleFile[];
+  initialJsBytes: number;
+  initialJsGzipBytes: number;
+  /** JavaScript chunks not loaded on the first page (route chunks, dynamic imports). */
+  later: BundleFile[];
+  laterJsGzipBytes: number;
+  css: BundleFile[];
+  cssGzipBytes: number;
+  targetGzipBytes: number;
+}
+
+const TARGET_GZIP = 250 * 1000;
+
+function measure(distDir: string, rel: string): BundleFile {
+  const bytes = fs.readFileSync(path.join(distDir, rel));
+  return { file: rel, bytes: bytes.length, gzipBytes: zlib.gzipSync(bytes, { level: 9 }).length };
+}
+
+interface ManifestChunk {
+  file: string;
+  isEntry?: boolean;
+  imports?: string[];
+  css?: string[];
+}
+
+function fromManifest(distDir: string): { initial: string[]; css: string[] } | null {
+  const file = [path.join(distDir, '.vite', 'manifest.json'), path.join(distDir, 'manifest.json')].find((f) => fs.existsSync(f));
+  if (!file) return null;
+  const manifest = JSON.parse(fs.readFileSync(file, 'utf8')) as Record<string, ManifestChunk>;
+  const initial = new Set<string>();
+  const css = new Set<string>();
+  const visit = (key: string) => {
+    const chunk = manifest[key];
+    if (!chunk || initial.has(chunk.file)) return;
+    initial.add(chunk.file);
+    for (const c of chunk.css ?? []) css.add(c);
+    for (const i of chunk.imports ?? []) visit(i);
+  };
+  for (const [key, chunk] of Object.entries(manifest)) if (chunk.isEntry) visit(key);
+  return { initial: [...initial], css: [...css] };
+}
+
+function fromIndexHtml(distDir: string): { initial: string[]; css: string[] } {
+  const html = fs.readFileSync(path.join(distDir, 'index.html'), 'utf8');
+  const attr = (tag: string, name: string) => new RegExp(`${name}="([^"]+)"`).exec(tag)?.[1];
+  const rel = (href: string) => href.replace(/^\//, '');
+  const initial: string[] = [];
+  const css: string[] = [];
+  for (const tag of html.match(/<script\b[^>]*>/g) ?? []) {
+    const src = attr(tag, 'src');
+    if (src && /type="module"/.test(tag)) initial.push(rel(src));
+  }
+  for (const tag of html.match(/<link\b[^>]*>/g) ?? []) {
+    const href = attr(tag, 'href');
+    if (!href) continue;
+    if (/rel="modulepreload"/.test(tag)) initial.push(rel(href));
+    if (/rel="stylesheet"/.test(tag)) css.push(rel(href));
+  }
+  return { initial, css };
+}
+
+function listFiles(dir: string, root = dir): string[] {
+  return fs.readdirSync(dir, { withFileTypes: true }).flatMap((e) => {
+    const full = path.join(dir, e.name);
+    return e.isDirectory() ? listFiles(full, root) : [path.relative(root, full)];
+  });
+}
+
+/** Measures a built client folder (index.html + assets). */
+export async function benchBundle(opts: { distDir?: string; build?: boolean } = {}): Promise<BundleReport> {
+  const distDir = path.resolve(opts.distDir ?? process.env.BINWRIGHT_DIST_DIR ?? 'dist');
+  if (opts.build) {
+    const { build } = await import('vite');
+    await build({ logLevel: 'warn', mode: 'production', build: { outDir: distDir } });
+  }
+  if (!fs.existsSync(path.join(distDir, 'index.html'))) throw new Error(`No built client in ${distDir}: run vite build (or pass --build).`);
+  const fromM = fromManifest(distDir);
+  const found = fromM ?? fromIndexHtml(distDir);
+  const initial = [...new Set(found.initial)].map((f) => measure(distDir, f));
+  const initialSet = new Set(initial.map((f) => f.file));
+  const allJs = listFiles(distDir).filter((f) => f.endsWith('.js') && !f.startsWith('.vite'));
+  const later = allJs.filter((f) => !initialSet.has(f)).map((f) => measure(distDir, f));
+  const cssFiles = found.css.length ? found.css : listFiles(distDir).filter((f) => f.endsWith('.css'));
+  const css = [...new Set(cssFiles)].map((f) => measure(distDir, f));
+  const sum = (xs: BundleFile[], k: 'bytes' | 'gzipBytes') => xs.reduce((a, x) => a + x[k], 0);
+  return {
+    distDir,
+    source: fromM ? 'manifest' : 'index.html',
+    initial,
+    initialJsBytes: sum(initial, 'bytes'),
+    initialJsGzipBytes: sum(initial, 'gzipBytes'),
+    later: later.sort((a, b) => b.gzipBytes - a.gzipBytes),
+    laterJsGzipBytes: sum(later, 'gzipBytes'),
+    css,
+    cssGzipBytes: sum(css, 'gzipBytes'),
+    targetGzipBytes: TARGET_GZIP,
+  };
+}
+
+const kB = (n: number) => `${(n / 1000).toFixed(1)} kB`;
+
+export function formatBundleReport(r: BundleReport): string[] {
+  return [
+    `  (f) client first load (${r.source}): ${r.initial.length} JS file(s) ${kB(r.initialJsBytes)} raw, ${kB(r.initialJsGzipBytes)} gzip   target < 250 kB gzip  ${r.initialJsGzipBytes < r.targetGzipBytes ? 'met' : 'MISSED'}`,
+    ...r.initial.map((f) => `        ${f.file}  ${kB(f.bytes)} raw, ${kB(f.gzipBytes)} gzip`),
+    `      loaded later: ${r.later.length} chunk(s), ${kB(r.laterJsGzipBytes)} gzip${r.later.length ? ` (largest ${r.later[0].file} ${kB(r.later[0].gzipBytes)})` : ''}; CSS ${kB(r.cssGzipBytes)} gzip`,
+  ];
+}
+
+if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
+  const report = await benchBundle({ build: process.argv.includes('--build') });
+  console.log(['', ...formatBundleReport(report), ''].join('\n'));
+}
