@@ -17,7 +17,9 @@ export function guardStoreErrors<S extends Store>(store: S): S {
   store.destroy = (sid, callback) => destroy(sid, (err) => callback?.(wrap(err)));
   if (store.touch) {
     const touch = store.touch.bind(store);
-    store.touch = (sid, session, callback) => touch(sid, session, (err) => callback?.(wrap(err)));
+    // The typings give touch's callback no error argument; express-session does pass one on.
+    type ErrCallback = (err?: unknown) => void;
+    store.touch = (sid, session, callback) => touch(sid, session, ((err?: unknown) => (callback as ErrCallback | undefined)?.(wrap(err))) as () => void);
   }
   return store;
 }

@@ -30,7 +30,24 @@ export function DistributionChart({ distributions, limits }: { distributions: No
             <XAxis type="number" dataKey="x" domain={['dataMin', 'dataMax']} tick={{ fontSize: 12 }} />
             <YAxis unit=" %" tick={{ fontSize: 12 }} width={48} />
             <Tooltip formatter={(v) => (typeof v === 'number' ? `${v.toFixed(1)} %` : String(v))} labelFormatter={(l) => `hFE from ${l}`} />
-            <Legend wrapperStyle={{ fontSize: 12 }} formatter={(value) => <span style={{ color: '#1f2a33' }}>{value}</span>} />
+            <Legend
+              wrapperStyle={{ fontSize: 12 }}
+              content={() => (
+                <ul className="flex flex-wrap justify-center gap-x-4 gap-y-1 text-xs text-ink">
+                  {lots.map((l, j) => {
+                    const st = STYLES[j % STYLES.length]!;
+                    return (
+                      <li key={l.lotId} className="flex items-center gap-1.5">
+                        <svg width="30" height="8" aria-hidden>
+                          <line x1="0" y1="4" x2="30" y2="4" stroke={st.stroke} strokeWidth={st.width} strokeDasharray={st.dash} />
+                        </svg>
+                        {l.code} (n {l.n})
+                      </li>
+                    );
+                  })}
+                </ul>
+              )}
+            />
             {([limits.hfeMin, limits.hfeMax] as const).map((v, i) =>
               v === null ? null : (
                 <ReferenceLine key={v} x={v} stroke="#b3261e" strokeDasharray="6 4" ifOverflow="extendDomain" label={{ value: `${i === 0 ? 'min' : 'max'} ${v}`, fontSize: 11, fill: '#b3261e', position: i === 0 ? 'insideTopLeft' : 'insideTopRight' }} />
