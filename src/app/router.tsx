@@ -1,28 +1,17 @@
 import { createBrowserRouter, type RouteObject } from 'react-router-dom';
-import { AdminAuditPage } from './routes/admin/audit.tsx';
-import { AdminMailPage } from './routes/admin/mail.tsx';
-import { AdminUsersPage } from './routes/admin/users.tsx';
 import { AppLayout } from './routes/app-layout.tsx';
 import { AreaPage } from './routes/areas/area-page.tsx';
-import { BenchLotPage } from './routes/bench/bench-lot-page.tsx';
-import { BenchQueuePage } from './routes/bench/bench-queue-page.tsx';
-import { CatalogPartTypeDetailPage } from './routes/catalog/part-type-detail.tsx';
-import { CatalogPartTypesPage } from './routes/catalog/part-types.tsx';
-import { CatalogSupplierDetailPage } from './routes/catalog/supplier-detail.tsx';
-import { CatalogSuppliersPage } from './routes/catalog/suppliers.tsx';
-import { DockPage } from './routes/dock/dock.tsx';
-import { LotPage } from './routes/dock/lot.tsx';
-import { BinsPage } from './routes/bins/bins-page.tsx';
-import { ContainerCodePage } from './routes/bins/container-code-page.tsx';
-import { ContainerPage } from './routes/bins/container-page.tsx';
 import { HomePage } from './routes/home.tsx';
-import { NcrPage } from './routes/suppliers/ncr-page.tsx';
-import { NcrsPage } from './routes/suppliers/ncrs-page.tsx';
-import { PlanningPage } from './routes/suppliers/planning-page.tsx';
-import { SupplierScorecardPage } from './routes/suppliers/supplier-scorecard-page.tsx';
-import { SuppliersPage } from './routes/suppliers/scorecards-page.tsx';
 import { NotFoundPage } from './routes/not-found.tsx';
 import { SignInPage } from './routes/sign-in.tsx';
+
+/**
+ * Area pages load on demand (one chunk per page), so the first load carries only the shell,
+ * sign-in and the start page.
+ */
+function page<M extends Record<string, unknown>>(load: () => Promise<M>, name: keyof M & string) {
+  return async () => ({ Component: (await load())[name] as React.ComponentType });
+}
 
 export const routes: RouteObject[] = [
   { path: '/sign-in', element: <SignInPage /> },
@@ -31,26 +20,26 @@ export const routes: RouteObject[] = [
     element: <AppLayout />,
     children: [
       { index: true, element: <HomePage /> },
-      { path: 'dock', element: <DockPage /> },
-      { path: 'dock/lots/:id', element: <LotPage /> },
-      { path: 'bench', element: <BenchQueuePage /> },
-      { path: 'bench/lots/:id', element: <BenchLotPage /> },
-      { path: 'bins', element: <BinsPage /> },
-      { path: 'bins/containers/code/:code', element: <ContainerCodePage /> },
-      { path: 'bins/containers/:id', element: <ContainerPage /> },
+      { path: 'dock', lazy: page(() => import('./routes/dock/dock.tsx'), 'DockPage') },
+      { path: 'dock/lots/:id', lazy: page(() => import('./routes/dock/lot.tsx'), 'LotPage') },
+      { path: 'bench', lazy: page(() => import('./routes/bench/bench-queue-page.tsx'), 'BenchQueuePage') },
+      { path: 'bench/lots/:id', lazy: page(() => import('./routes/bench/bench-lot-page.tsx'), 'BenchLotPage') },
+      { path: 'bins', lazy: page(() => import('./routes/bins/bins-page.tsx'), 'BinsPage') },
+      { path: 'bins/containers/code/:code', lazy: page(() => import('./routes/bins/container-code-page.tsx'), 'ContainerCodePage') },
+      { path: 'bins/containers/:id', lazy: page(() => import('./routes/bins/container-page.tsx'), 'ContainerPage') },
       { path: 'pairing', element: <AreaPage area="pairing" /> },
-      { path: 'suppliers', element: <SuppliersPage /> },
-      { path: 'suppliers/ncrs', element: <NcrsPage /> },
-      { path: 'suppliers/ncrs/:id', element: <NcrPage /> },
-      { path: 'suppliers/planning', element: <PlanningPage /> },
-      { path: 'suppliers/:id', element: <SupplierScorecardPage /> },
-      { path: 'catalog', element: <CatalogPartTypesPage /> },
-      { path: 'catalog/part-types/:id', element: <CatalogPartTypeDetailPage /> },
-      { path: 'catalog/suppliers', element: <CatalogSuppliersPage /> },
-      { path: 'catalog/suppliers/:id', element: <CatalogSupplierDetailPage /> },
-      { path: 'admin/users', element: <AdminUsersPage /> },
-      { path: 'admin/audit', element: <AdminAuditPage /> },
-      { path: 'admin/mail', element: <AdminMailPage /> },
+      { path: 'suppliers', lazy: page(() => import('./routes/suppliers/scorecards-page.tsx'), 'SuppliersPage') },
+      { path: 'suppliers/ncrs', lazy: page(() => import('./routes/suppliers/ncrs-page.tsx'), 'NcrsPage') },
+      { path: 'suppliers/ncrs/:id', lazy: page(() => import('./routes/suppliers/ncr-page.tsx'), 'NcrPage') },
+      { path: 'suppliers/planning', lazy: page(() => import('./routes/suppliers/planning-page.tsx'), 'PlanningPage') },
+      { path: 'suppliers/:id', lazy: page(() => import('./routes/suppliers/supplier-scorecard-page.tsx'), 'SupplierScorecardPage') },
+      { path: 'catalog', lazy: page(() => import('./routes/catalog/part-types.tsx'), 'CatalogPartTypesPage') },
+      { path: 'catalog/part-types/:id', lazy: page(() => import('./routes/catalog/part-type-detail.tsx'), 'CatalogPartTypeDetailPage') },
+      { path: 'catalog/suppliers', lazy: page(() => import('./routes/catalog/suppliers.tsx'), 'CatalogSuppliersPage') },
+      { path: 'catalog/suppliers/:id', lazy: page(() => import('./routes/catalog/supplier-detail.tsx'), 'CatalogSupplierDetailPage') },
+      { path: 'admin/users', lazy: page(() => import('./routes/admin/users.tsx'), 'AdminUsersPage') },
+      { path: 'admin/audit', lazy: page(() => import('./routes/admin/audit.tsx'), 'AdminAuditPage') },
+      { path: 'admin/mail', lazy: page(() => import('./routes/admin/mail.tsx'), 'AdminMailPage') },
       { path: '*', element: <NotFoundPage /> },
     ],
   },
