@@ -6,6 +6,7 @@ import path from 'node:path';
 import type { Server } from 'node:http';
 import { build } from 'vite';
 import { createApp } from '../server/app.ts';
+import { releaseExpiredKits } from '../server/modules/pairing/kit-expiry.ts';
 import { bootBackend, closeServer, log, printBanner, reportStartError } from './lib/boot.ts';
 
 async function main() {
@@ -22,6 +23,10 @@ async function main() {
       s.once('error', reject);
     });
     b.onStop(() => closeServer(server));
+    // Pairing: expired kit reservations go back to stock once a minute (reads release them too).
+    const sweep = setInterval(() => void releaseExpiredKits(b.ds).catch((e) => console.error('[binwright] kit expiry sweep', e)), 60_000);
+    sweep.unref();
+    b.onStop(() => clearInterval(sweep));
     printBanner(`http://${b.host === '0.0.0.0' ? 'localhost' : b.host}:${b.config.port}/`);
   } catch (e) {
     reportStartError(e);

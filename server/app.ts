@@ -12,6 +12,7 @@ import { readConfig, type ServerConfig } from './config.ts';
 import { csrfProtection } from './http/csrf.ts';
 import { errorHandler, notFoundHandler } from './http/error-handler.ts';
 import { requireAuth } from './http/guards.ts';
+import { refuseUnstorableText } from './http/refuse-unstorable-text.ts';
 import { guardStoreErrors, throttleTouch } from './http/session-store.ts';
 import { auditRouter } from './modules/audit/audit.routes.ts';
 import { authRouter } from './modules/auth/auth.routes.ts';
@@ -69,6 +70,7 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir, ma
   const pool = (ds.driver as unknown as { master: Pool }).master;
   const api = express.Router();
   api.use(express.json({ limit: '1mb' }));
+  api.use(refuseUnstorableText);
   // Before the session: health needs none, and answers its own 503 body when the database is down.
   api.use('/health', healthRouter(ds));
   api.use(
@@ -80,7 +82,9 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir, ma
       resave: false,
       saveUninitialized: false,
       rolling: true,
-      cookie: { httpOnly: true, sameSite: 'lax', secure: false, maxAge: 12 * 60 * 60 * 1000 },
+      // secure 'auto': the cookie is marked Secure whenever the request came over HTTPS (directly or
+      // from a TLS-terminating proxy on loopback, see trust proxy), and still works on plain HTTP.
+      cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: 12 * 60 * 60 * 1000 },
     }),
   );
   const passport = createPassport(ds);

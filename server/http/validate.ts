@@ -2,6 +2,7 @@ import { plainToInstance, type ClassConstructor } from 'class-transformer';
 import { validate, type ValidationError } from 'class-validator';
 import type { FieldError } from '../../shared/api/problem.ts';
 import { AppError } from './app-error.ts';
+import { unstorableTextErrors } from './refuse-unstorable-text.ts';
 
 function flatten(errors: ValidationError[], prefix = ''): FieldError[] {
   const out: FieldError[] = [];
@@ -25,6 +26,9 @@ export async function parseBody<T extends object>(cls: ClassConstructor<T>, body
   if (body === null || typeof body !== 'object' || Array.isArray(body)) {
     throw AppError.badRequest('The request body must be a JSON object.');
   }
+  // Also covers bodies that did not come as JSON (multipart form fields parsed by a route).
+  const unstorable = unstorableTextErrors(body);
+  if (unstorable.length) throw AppError.badRequest(`Text that cannot be stored: check ${unstorable.map((e) => e.field).join(', ')}.`, unstorable);
   const instance = plainToInstance(cls, body, { enableImplicitConversion: false });
   const errors = await validate(instance, { whitelist: true, forbidNonWhitelisted: true, forbidUnknownValues: true });
   if (errors.length) {

@@ -10,8 +10,8 @@ export const MATCH_MODES = ['same', 'complementary'] as const;
 export type MatchMode = (typeof MATCH_MODES)[number];
 
 export const MATCH_MODE_LABELS: Record<MatchMode, string> = {
-  same: 'Same polarity (differential pairs, current mirrors)',
-  complementary: 'Complementary NPN + PNP (push-pull output)',
+  same: 'Same polarity — diff pairs, mirrors',
+  complementary: 'Complementary NPN + PNP — push-pull',
 };
 
 export const SET_SIZES = [2, 4] as const;

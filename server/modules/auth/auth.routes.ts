@@ -34,6 +34,19 @@ export function authRouter(passport: InstanceType<typeof Passport>, opts: { logi
       sendProblem(res, 429, 'too-many-attempts', 'Too many failed sign-ins for this e-mail. Wait 15 minutes and try again.'),
   });
 
+  // Password spraying (one guess each for many e-mails) passes the per-e-mail limit: failures
+  // from one address are limited too, at ten times the per-e-mail count.
+  const addressLimiter = rateLimit({
+    windowMs: 15 * 60 * 1000,
+    limit: opts.loginLimit * 10,
+    skipSuccessfulRequests: true,
+    standardHeaders: 'draft-8',
+    legacyHeaders: false,
+    keyGenerator: (req) => ipKeyGenerator(req.ip ?? ''),
+    handler: (_req, res) =>
+      sendProblem(res, 429, 'too-many-attempts', 'Too many failed sign-ins from this address. Wait 15 minutes and try again.'),
+  });
+
   r.get('/csrf', (req, res, next) => {
     const csrfToken = issueCsrfToken(req);
     // Saved before answering: a token the store could not keep is an error (503 when the
@@ -41,7 +54,7 @@ export function authRouter(passport: InstanceType<typeof Passport>, opts: { logi
     req.session.save((err) => (err ? next(err) : res.json({ csrfToken })));
   });
 
-  r.post('/login', loginLimiter, async (req, res, next) => {
+  r.post('/login', addressLimiter, loginLimiter, async (req, res, next) => {
     await parseBody(LoginDto, req.body);
     passport.authenticate('local', { session: false }, (err: unknown, user: SessionUser | false) => {
       if (err) return next(err);

@@ -1,6 +1,7 @@
-import { IsEmail, IsIn, IsString, MaxLength, MinLength } from 'class-validator';
+import { IsEmail, IsIn, IsString, MaxLength, MinLength, Validate } from 'class-validator';
 import { ROLES, type Role } from '../../../shared/api/roles.ts';
 import type { CreateUserRequest } from '../../../shared/api/users.ts';
+import { PasswordRules } from './password-rules.ts';
 
 export class CreateUserDto implements CreateUserRequest {
   @IsEmail({}, { message: 'email must be an e-mail address' })
@@ -18,5 +19,6 @@ export class CreateUserDto implements CreateUserRequest {
   @IsString()
   @MinLength(10, { message: 'password must have at least 10 characters' })
   @MaxLength(200)
+  @Validate(PasswordRules)
   password: string;
 }

@@ -34,7 +34,10 @@ function receiveOneFile(maxBytes: number): RequestHandler {
         const field = err.field ?? 'file';
         return next(AppError.badRequest(`The upload was refused: ${err.message}.`, [{ field, message: err.message }]));
       }
-      next(err);
+      // Anything else here comes from reading the multipart body itself (busboy: a malformed part
+      // header, e.g. a NUL in the file name, or a body cut short): the request is at fault, not the server.
+      const message = err instanceof Error ? err.message : 'unreadable multipart body';
+      next(AppError.badRequest(`The upload could not be read: ${message}.`, [{ field: 'file', message }]));
     });
   };
 }

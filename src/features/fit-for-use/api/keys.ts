@@ -1,0 +1,4 @@
+export const biasKeys = {
+  all: ['bias'] as const,
+  sources: () => [...biasKeys.all, 'sources'] as const,
+};

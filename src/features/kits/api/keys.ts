@@ -1,0 +1,9 @@
+import type { KitFilters } from '../../../../shared/api/pairing.ts';
+
+export const kitKeys = {
+  all: ['kits'] as const,
+  lists: () => [...kitKeys.all, 'list'] as const,
+  list: (filters: KitFilters) => [...kitKeys.lists(), filters] as const,
+  detail: (id: number) => [...kitKeys.all, 'detail', id] as const,
+  stock: () => [...kitKeys.all, 'stock'] as const,
+};
