@@ -12,6 +12,7 @@
  */
 import 'reflect-metadata';
 import { benchBinLabels } from './bench-labels.ts';
+import { benchMatching } from './bench-matching.ts';
 import { spawnSync } from 'node:child_process';
 import fs from 'node:fs';
 import path from 'node:path';
@@ -283,6 +284,7 @@ async function main() {
     }
 
     const labels = await benchBinLabels(500);
+    const matching = await benchMatching();
 
     const imp = median(importMs);
     const copy = median(copyMs);
@@ -298,6 +300,8 @@ async function main() {
       `  (c) summary, n = ${n.toLocaleString('en')}  ${median(viaHttp).toFixed(1).padStart(6)} ms over HTTP, ${median(direct).toFixed(1)} ms in-process   target < 150 ms  ${median(viaHttp) < 150 ? 'met' : 'MISSED'}`,
       `      of which fetching the two columns: ${median(fetchOnly).toFixed(1)} ms`,
       `  (d) bin labels, 500 in one PDF  ${labels.ms.toFixed(0).padStart(6)} ms  ${(labels.bytes / 1024).toFixed(0)} kB   target < 3,000 ms  ${labels.ms < 3000 ? 'met' : 'MISSED'}`,
+      `  (e) matching, ${matching.parts.toLocaleString('en')} parts in stock (pairs)  ${matching.ms.toFixed(0).padStart(6)} ms, ${matching.sets} pairs   target < 300 ms  ${matching.ms < 300 ? 'met' : 'MISSED'}`,
+      `      reference library (test-only) on ${matching.referenceParts.toLocaleString('en')} parts: ${matching.referenceMs.toFixed(0)} ms; ratio ours/reference ${matching.ratio.toFixed(2)}; same number of sets: ${matching.sameSets}`,
       `  runs (ms): import ${importMs.map((x) => x.toFixed(0)).join(', ')}; http ${httpMs.map((x) => x.toFixed(0)).join(', ')}; copy ${copyMs.map((x) => x.toFixed(0)).join(', ')}; summary ${viaHttp.map((x) => x.toFixed(0)).join(', ')}`,
       '',
     ];

@@ -1,10 +1,6 @@
 import { createBrowserRouter, type RouteObject } from 'react-router-dom';
 import { AppLayout } from './routes/app-layout.tsx';
 import { HomePage } from './routes/home.tsx';
-import { FitForUsePage } from './routes/pairing/fit-for-use-page.tsx';
-import { KitPage } from './routes/pairing/kit-page.tsx';
-import { LoosePartsPage } from './routes/pairing/loose-parts-page.tsx';
-import { PairingPage } from './routes/pairing/pairing-page.tsx';
 import { NotFoundPage } from './routes/not-found.tsx';
 import { SignInPage } from './routes/sign-in.tsx';
 
@@ -30,10 +26,10 @@ export const routes: RouteObject[] = [
       { path: 'bins', lazy: page(() => import('./routes/bins/bins-page.tsx'), 'BinsPage') },
       { path: 'bins/containers/code/:code', lazy: page(() => import('./routes/bins/container-code-page.tsx'), 'ContainerCodePage') },
       { path: 'bins/containers/:id', lazy: page(() => import('./routes/bins/container-page.tsx'), 'ContainerPage') },
-      { path: 'pairing', element: <PairingPage /> },
-      { path: 'pairing/kits/:id', element: <KitPage /> },
-      { path: 'pairing/loose-parts', element: <LoosePartsPage /> },
-      { path: 'pairing/fit-for-use', element: <FitForUsePage /> },
+      { path: 'pairing', lazy: page(() => import('./routes/pairing/pairing-page.tsx'), 'PairingPage') },
+      { path: 'pairing/kits/:id', lazy: page(() => import('./routes/pairing/kit-page.tsx'), 'KitPage') },
+      { path: 'pairing/loose-parts', lazy: page(() => import('./routes/pairing/loose-parts-page.tsx'), 'LoosePartsPage') },
+      { path: 'pairing/fit-for-use', lazy: page(() => import('./routes/pairing/fit-for-use-page.tsx'), 'FitForUsePage') },
       { path: 'suppliers', lazy: page(() => import('./routes/suppliers/scorecards-page.tsx'), 'SuppliersPage') },
       { path: 'suppliers/ncrs', lazy: page(() => import('./routes/suppliers/ncrs-page.tsx'), 'NcrsPage') },
       { path: 'suppliers/ncrs/:id', lazy: page(() => import('./routes/suppliers/ncr-page.tsx'), 'NcrPage') },
