@@ -16,12 +16,14 @@ export default {
         paper: '#f5f4ef',
         panel: '#ffffff',
         rule: '#d9d6cc',
-        ink: { DEFAULT: '#1f2a33', soft: '#4a5661', faint: '#7b858d' },
+        // faint, copper, pass and hold darkened for WCAG 2.1 AA contrast (4.5:1 for small text, on
+        // panel, paper and the -light tints); checked by axe-core in tests/e2e/a11y.test.ts.
+        ink: { DEFAULT: '#1f2a33', soft: '#4a5661', faint: '#5f6870' },
         slate: { bar: '#23303b', hover: '#2f3f4c' },
-        copper: { DEFAULT: '#b5652b', dark: '#8f4c1d', light: '#f6e6d8' },
-        pass: { DEFAULT: '#2f7a47', light: '#e2f1e6' },
+        copper: { DEFAULT: '#a0571f', dark: '#8f4c1d', light: '#f6e6d8' },
+        pass: { DEFAULT: '#2a6f40', light: '#e2f1e6' },
         fail: { DEFAULT: '#b3261e', light: '#fbe4e1' },
-        hold: { DEFAULT: '#9a6a00', light: '#fbf0d2' },
+        hold: { DEFAULT: '#855b00', light: '#fbf0d2' },
         info: { DEFAULT: '#2b5f8f', light: '#e2edf7' },
       },
       fontSize: {

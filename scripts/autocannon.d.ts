@@ -17,6 +17,8 @@ declare module 'autocannon' {
     duration?: number;
     amount?: number;
     maxOverallRequests?: number;
+    /** Requests per second over all connections. */
+    overallRate?: number;
     timeout?: number;
     method?: string;
     headers?: Record<string, string>;

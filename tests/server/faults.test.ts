@@ -4,11 +4,13 @@ import net from 'node:net';
 import os from 'node:os';
 import path from 'node:path';
 import request from 'supertest';
-import type { DataSource } from 'typeorm';
+import type { DataSource, EntityManager } from 'typeorm';
 import { afterAll, describe, expect, it } from 'vitest';
 import { createApp } from '../../server/app.ts';
 import { readConfig } from '../../server/config.ts';
 import { createDataSource } from '../../server/data-source.ts';
+import { AppError } from '../../server/http/app-error.ts';
+import { nextContainerCodes } from '../../server/modules/bins/container-code.ts';
 import { MeasurementSession } from '../../server/modules/measurements/measurement-session.entity.ts';
 import { startAppProcess, type AppProcess } from '../../scripts/lib/app-process.ts';
 import { clusterEnv, portIsFree, startCluster, type RunningCluster } from '../../scripts/lib/pg-cluster.ts';
@@ -206,5 +208,17 @@ describe('PostgreSQL stopped while the server runs (a separate throwaway cluster
       for (const s of sockets) s.destroy();
       silent.close();
     }
+  });
+});
+
+describe('limits that are reached in a busy day', () => {
+  it('when the day\'s container numbers (C-YYYYMMDD-NNNN, 9 999 a day) run out, screening is refused with 409, not a 500', async () => {
+    // The counter row is stubbed: moving the shared test database's real counter would disturb other tests.
+    const counterAt = (last: number) => ({ query: async () => [{ last }] }) as unknown as EntityManager;
+    const day = new Date(Date.UTC(2026, 11, 1, 10));
+    expect(await nextContainerCodes(counterAt(9999), day, 2)).toEqual(['C-20261201-9998', 'C-20261201-9999']);
+    const err = await nextContainerCodes(counterAt(10_001), day, 2).catch((e: unknown) => e);
+    expect(err).toBeInstanceOf(AppError);
+    expect(err).toMatchObject({ status: 409, errors: [{ field: 'containers', message: 'no container numbers left for today' }] });
   });
 });

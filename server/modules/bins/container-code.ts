@@ -1,5 +1,6 @@
 import type { EntityManager } from 'typeorm';
-import { makeContainerCode } from '../../../shared/domain/labels/index.ts';
+import { LabelFormatError, makeContainerCode } from '../../../shared/domain/labels/index.ts';
+import { AppError } from '../../http/app-error.ts';
 
 /**
  * Issues the next container code of the day (UTC calendar day) inside the caller's transaction,
@@ -16,5 +17,16 @@ export async function nextContainerCodes(m: EntityManager, now: Date, count: num
     [day, count],
   );
   const last = rows[0].last;
-  return Array.from({ length: count }, (_, i) => makeContainerCode(now, last - count + 1 + i));
+  try {
+    return Array.from({ length: count }, (_, i) => makeContainerCode(now, last - count + 1 + i));
+  } catch (e) {
+    // The code format has four digits per day (C-YYYYMMDD-NNNN): past 9 999 containers in one
+    // day, refuse clearly (the caller's transaction rolls back) instead of failing with a 500.
+    if (e instanceof LabelFormatError && e.field === 'sequence') {
+      throw AppError.conflict(`Today's container numbers are used up (${last.toLocaleString('en')} containers needed, 9,999 per day); nothing was placed. Continue tomorrow or use larger containers.`, [
+        { field: 'containers', message: 'no container numbers left for today' },
+      ]);
+    }
+    throw e;
+  }
 }

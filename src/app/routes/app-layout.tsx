@@ -30,12 +30,13 @@ export function AppLayout() {
         Skip to content
       </a>
       <header className="bg-slate-bar text-white">
-        <div className="mx-auto flex max-w-[1400px] items-center gap-6 px-4">
+        <div className="mx-auto flex max-w-[1400px] flex-wrap items-center gap-x-6 px-4">
           <NavLink to="/" className="flex items-center gap-2 py-2.5 font-bold tracking-tight">
             <Logo size={26} />
             Binwright
           </NavLink>
-          <nav aria-label="Areas" className="flex flex-1 gap-1 overflow-x-auto">
+          {/* Narrow screens: the areas get a row of their own under the name and the user. */}
+          <nav aria-label="Areas" className="order-last -mx-3 flex basis-full gap-1 overflow-x-auto sm:order-none sm:mx-0 sm:flex-1 sm:basis-auto">
             {AREAS_BY_ROLE[user.role].map((area) => (
               <NavLink
                 key={area}
@@ -52,7 +53,7 @@ export function AppLayout() {
               </NavLink>
             ))}
           </nav>
-          <div className="flex items-center gap-3 text-sm">
+          <div className="ml-auto flex items-center gap-3 text-sm sm:ml-0">
             <span className="text-right leading-tight">
               <span className="block font-semibold" data-testid="user-name">{user.name}</span>
               <span className="block text-xs text-white/70" data-testid="user-role">{ROLE_LABELS[user.role]}</span>

@@ -1,12 +1,15 @@
 import { Link } from 'react-router-dom';
-import { EmptyState } from '../../components/ui/page.tsx';
+import { EmptyState, PageHeader } from '../../components/ui/page.tsx';
 
 export function NotFoundPage() {
   return (
-    <EmptyState title="There is no page at this address">
-      <Link to="/" className="font-semibold text-copper-dark underline">
-        Go to your start page
-      </Link>
-    </EmptyState>
+    <>
+      <PageHeader title="Page not found" />
+      <EmptyState title="There is no page at this address">
+        <Link to="/" className="font-semibold text-copper-dark underline">
+          Go to your start page
+        </Link>
+      </EmptyState>
+    </>
   );
 }

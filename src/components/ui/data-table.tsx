@@ -6,6 +6,7 @@ import {
   type SortingState,
 } from '@tanstack/react-table';
 import { Button } from './button.tsx';
+import { ScrollBox } from './scroll-box.tsx';
 
 export interface ServerSort {
   id: string;
@@ -68,8 +69,9 @@ export function DataTable<T>({
 
   return (
     <div className="overflow-hidden rounded-lg border border-rule bg-panel">
-      <div className="overflow-x-auto">
-        <table className="w-full border-collapse text-sm" aria-busy={loading || undefined}>
+      <ScrollBox label={caption}>
+        {/* At least 40rem wide: on a phone the table scrolls sideways instead of breaking codes over lines. */}
+        <table className="w-full min-w-[40rem] border-collapse text-sm" aria-busy={loading || undefined}>
           <caption className="sr-only">{caption}</caption>
           <thead className="bg-paper text-left">
             {table.getHeaderGroups().map((hg) => (
@@ -110,7 +112,7 @@ export function DataTable<T>({
             ))}
           </tbody>
         </table>
-      </div>
+      </ScrollBox>
       {rows.length === 0 && !loading && <div className="px-4 py-8 text-center text-sm text-ink-soft">{empty ?? 'Nothing to show.'}</div>}
       <div className="flex items-center justify-between gap-3 border-t border-rule bg-paper px-3 py-2 text-xs text-ink-soft">
         <span className="num">

@@ -9,7 +9,7 @@ export function AdminMailPage() {
     <RequireArea area="admin">
       <PageHeader title="Admin" subtitle="Outgoing mail. In this installation the SMTP server is a local sink: nothing leaves the machine." />
       <AdminTabs />
-      <div className="grid gap-5 xl:grid-cols-[1fr_28rem]">
+      <div className="grid grid-cols-1 gap-5 xl:grid-cols-[minmax(0,1fr)_28rem]">
         <OutboxTable />
         <Panel title="Received by the local sink">
           <SinkMessages />

@@ -11,7 +11,7 @@ export function AdminUsersPage() {
     <RequireArea area="admin">
       <PageHeader title="Admin" subtitle="Users are deactivated, never deleted, so the audit trail keeps their names." />
       <AdminTabs />
-      <div className="grid gap-5 lg:grid-cols-[1fr_20rem]">
+      <div className="grid grid-cols-1 gap-5 lg:grid-cols-[minmax(0,1fr)_20rem]">
         <UsersTable currentUserId={user.id} />
         <Panel title="New user">
           <CreateUserForm />

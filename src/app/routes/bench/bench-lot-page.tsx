@@ -85,7 +85,7 @@ export function BenchLotPage() {
                   dangerous voltages: follow your bench's procedures and local rules.
                 </Notice>
               </div>
-              <div className="grid gap-5 xl:grid-cols-[minmax(0,1fr)_26rem]">
+              <div className="grid grid-cols-1 gap-5 xl:grid-cols-[minmax(0,1fr)_26rem]">
                 <div className="flex min-w-0 flex-col gap-5">
                   <Panel title="Measure">
                     <ScreeningCallout lotId={lot.id} containerHref={(cid) => `/bins/containers/${cid}`} />

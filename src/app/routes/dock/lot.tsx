@@ -45,7 +45,7 @@ export function LotPage() {
               </span>
             }
           />
-          <div className="grid gap-5 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
+          <div className="grid grid-cols-1 gap-5 lg:grid-cols-[minmax(0,3fr)_minmax(0,2fr)]">
             <div className="flex flex-col gap-5">
               <LotSummary lot={q.data} />
               <DocumentsPanel lot={q.data} canUpload={canEdit} />

@@ -6,6 +6,7 @@ import { Button } from '../../../components/ui/button.tsx';
 import { SelectField, TextField } from '../../../components/ui/field.tsx';
 import { Notice } from '../../../components/ui/notice.tsx';
 import { Loading, Panel } from '../../../components/ui/page.tsx';
+import { ScrollBox } from '../../../components/ui/scroll-box.tsx';
 import { ApiError } from '../../../lib/api-client.ts';
 import { useLotScreening } from '../api/get-lot-screening.ts';
 import { usePlaceScreened, useSaveScreeningSetup } from '../api/place-screened.ts';
@@ -26,31 +27,33 @@ function YieldTable({ s }: { s: LotScreening }) {
     },
   ];
   return (
-    <table className="w-full text-sm">
-      <caption className="sr-only">Screening yield per bin</caption>
-      <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-        <tr>
-          <th className="py-1 pr-2">Bin</th>
-          <th className="py-1 pr-2 whitespace-nowrap">hFE at 25 °C</th>
-          <th className="py-1 pr-2 text-right">Parts</th>
-          <th className="py-1 pr-2 text-right">Yield</th>
-          <th className="w-1/4 min-w-[3rem] py-1" aria-hidden />
-        </tr>
-      </thead>
-      <tbody>
-        {rows.map((r) => (
-          <tr key={r.key} className="border-t border-rule/70">
-            <td className="py-1 pr-2 whitespace-nowrap">{r.chip}</td>
-            <td className="num py-1 pr-2 whitespace-nowrap text-ink-soft">{r.interval}</td>
-            <td className="num py-1 pr-2 text-right font-semibold">{r.count.toLocaleString()}</td>
-            <td className="num py-1 pr-2 whitespace-nowrap text-right">{r.pct.toFixed(1)} %</td>
-            <td className="py-1" aria-hidden>
-              <div className="h-2.5 rounded-sm" style={{ width: `${Math.max(r.pct, r.count ? 1 : 0)}%`, background: r.fill }} />
-            </td>
+    <ScrollBox label="Screening yield per bin">
+      <table className="w-full text-sm">
+        <caption className="sr-only">Screening yield per bin</caption>
+        <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
+          <tr>
+            <th className="py-1 pr-2">Bin</th>
+            <th className="py-1 pr-2 whitespace-nowrap">hFE at 25 °C</th>
+            <th className="py-1 pr-2 text-right">Parts</th>
+            <th className="py-1 pr-2 text-right">Yield</th>
+            <th className="w-1/4 min-w-[3rem] py-1" aria-hidden />
           </tr>
-        ))}
-      </tbody>
-    </table>
+        </thead>
+        <tbody>
+          {rows.map((r) => (
+            <tr key={r.key} className="border-t border-rule/70">
+              <td className="py-1 pr-2 whitespace-nowrap">{r.chip}</td>
+              <td className="num py-1 pr-2 whitespace-nowrap text-ink-soft">{r.interval}</td>
+              <td className="num py-1 pr-2 text-right font-semibold">{r.count.toLocaleString()}</td>
+              <td className="num py-1 pr-2 whitespace-nowrap text-right">{r.pct.toFixed(1)} %</td>
+              <td className="py-1" aria-hidden>
+                <div className="h-2.5 rounded-sm" style={{ width: `${Math.max(r.pct, r.count ? 1 : 0)}%`, background: r.fill }} />
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </ScrollBox>
   );
 }
 

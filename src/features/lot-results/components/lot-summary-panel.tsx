@@ -2,6 +2,7 @@ import { useState } from 'react';
 import type { HistogramRuleParam, LotSummary } from '../../../../shared/api/lot-results.ts';
 import { Loading, Panel, EmptyState } from '../../../components/ui/page.tsx';
 import { Notice, StatusTag } from '../../../components/ui/notice.tsx';
+import { ScrollBox } from '../../../components/ui/scroll-box.tsx';
 import { useLotSummary } from '../api/get-lot-summary.ts';
 import { HistogramChart } from './histogram-chart.tsx';
 
@@ -20,34 +21,36 @@ function StatsTable({ s }: { s: LotSummary }) {
     { name: 'Vbe (mV)', q: s.vbeMv, cp: s.vbeMv.cp, cpk: s.vbeMv.cpk },
   ];
   return (
-    <table className="w-full border-collapse text-sm" aria-label="Lot statistics at 25 °C">
-      <thead>
-        <tr className="border-b border-rule text-right text-xs font-bold uppercase tracking-wide text-ink-soft">
-          <th className="px-2 py-1 text-left" />
-          {['mean', 's', 'min', 'p5', 'median', 'p95', 'max', 'Cp', 'Cpk'].map((h) => (
-            <th key={h} className="px-2 py-1">
-              {h}
-            </th>
-          ))}
-        </tr>
-      </thead>
-      <tbody>
-        {rows.map((r) => (
-          <tr key={r.name} className="border-b border-rule/60 text-right">
-            <th scope="row" className="px-2 py-1 text-left font-semibold">
-              {r.name}
-            </th>
-            {[r.q.mean, r.q.sd, r.q.min, r.q.p05, r.q.median, r.q.p95, r.q.max].map((v, i) => (
-              <td key={i} className="num px-2 py-1">
-                {f(v, i === 1 ? 2 : 1)}
-              </td>
+    <ScrollBox label="Lot statistics at 25 °C">
+      <table className="w-full border-collapse text-sm" aria-label="Lot statistics at 25 °C">
+        <thead>
+          <tr className="border-b border-rule text-right text-xs font-bold uppercase tracking-wide text-ink-soft">
+            <th className="px-2 py-1 text-left" />
+            {['mean', 's', 'min', 'p5', 'median', 'p95', 'max', 'Cp', 'Cpk'].map((h) => (
+              <th key={h} className="px-2 py-1">
+                {h}
+              </th>
             ))}
-            <td className="num px-2 py-1">{f(r.cp, 2)}</td>
-            <td className={`num px-2 py-1 ${r.cpk !== null && r.cpk < 1.33 ? 'font-semibold text-hold' : ''}`}>{f(r.cpk, 2)}</td>
           </tr>
-        ))}
-      </tbody>
-    </table>
+        </thead>
+        <tbody>
+          {rows.map((r) => (
+            <tr key={r.name} className="border-b border-rule/60 text-right">
+              <th scope="row" className="px-2 py-1 text-left font-semibold">
+                {r.name}
+              </th>
+              {[r.q.mean, r.q.sd, r.q.min, r.q.p05, r.q.median, r.q.p95, r.q.max].map((v, i) => (
+                <td key={i} className="num px-2 py-1">
+                  {f(v, i === 1 ? 2 : 1)}
+                </td>
+              ))}
+              <td className="num px-2 py-1">{f(r.cp, 2)}</td>
+              <td className={`num px-2 py-1 ${r.cpk !== null && r.cpk < 1.33 ? 'font-semibold text-hold' : ''}`}>{f(r.cpk, 2)}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </ScrollBox>
   );
 }
 
@@ -99,37 +102,39 @@ export function LotSummaryPanel({ lotId }: { lotId: number }) {
             <HistogramChart summary={q.data} />
           </div>
           {q.data.bins.length > 0 && (
-            <table className="w-full max-w-xl border-collapse text-sm" aria-label="Yield per gain bin">
-              <thead>
-                <tr className="border-b border-rule text-left text-xs font-bold uppercase tracking-wide text-ink-soft">
-                  <th className="px-2 py-1">Bin</th>
-                  <th className="px-2 py-1">hFE</th>
-                  <th className="px-2 py-1 text-right">Parts</th>
-                  <th className="px-2 py-1 text-right">Yield</th>
-                </tr>
-              </thead>
-              <tbody>
-                {q.data.bins.map((b) => (
-                  <tr key={b.code} className="border-b border-rule/60">
-                    <td className="px-2 py-1 font-semibold">
-                      {b.code} <span className="font-normal text-ink-soft">{b.label}</span>
-                    </td>
-                    <td className="num px-2 py-1">
-                      {b.hfeMin} – {b.hfeMax}
-                    </td>
-                    <td className="num px-2 py-1 text-right">{b.count.toLocaleString()}</td>
-                    <td className="num px-2 py-1 text-right">{b.yieldPct.toFixed(1)} %</td>
+            <ScrollBox label="Yield per gain bin">
+              <table className="w-full max-w-xl border-collapse text-sm" aria-label="Yield per gain bin">
+                <thead>
+                  <tr className="border-b border-rule text-left text-xs font-bold uppercase tracking-wide text-ink-soft">
+                    <th className="px-2 py-1">Bin</th>
+                    <th className="px-2 py-1">hFE</th>
+                    <th className="px-2 py-1 text-right">Parts</th>
+                    <th className="px-2 py-1 text-right">Yield</th>
                   </tr>
-                ))}
-                <tr>
-                  <td className="px-2 py-1 text-ink-soft" colSpan={2}>
-                    outside all bins
-                  </td>
-                  <td className="num px-2 py-1 text-right">{q.data.outsideBins.toLocaleString()}</td>
-                  <td className="num px-2 py-1 text-right">{((100 * q.data.outsideBins) / q.data.n).toFixed(1)} %</td>
-                </tr>
-              </tbody>
-            </table>
+                </thead>
+                <tbody>
+                  {q.data.bins.map((b) => (
+                    <tr key={b.code} className="border-b border-rule/60">
+                      <td className="px-2 py-1 font-semibold">
+                        {b.code} <span className="font-normal text-ink-soft">{b.label}</span>
+                      </td>
+                      <td className="num px-2 py-1">
+                        {b.hfeMin} – {b.hfeMax}
+                      </td>
+                      <td className="num px-2 py-1 text-right">{b.count.toLocaleString()}</td>
+                      <td className="num px-2 py-1 text-right">{b.yieldPct.toFixed(1)} %</td>
+                    </tr>
+                  ))}
+                  <tr>
+                    <td className="px-2 py-1 text-ink-soft" colSpan={2}>
+                      outside all bins
+                    </td>
+                    <td className="num px-2 py-1 text-right">{q.data.outsideBins.toLocaleString()}</td>
+                    <td className="num px-2 py-1 text-right">{((100 * q.data.outsideBins) / q.data.n).toFixed(1)} %</td>
+                  </tr>
+                </tbody>
+              </table>
+            </ScrollBox>
           )}
         </div>
       )}

@@ -3,6 +3,7 @@ import { useDropzone, type FileRejection } from 'react-dropzone';
 import { DOCUMENT_ACCEPTED, DOCUMENT_KINDS, DOCUMENT_KIND_LABELS, DOCUMENT_MAX_BYTES, type DocumentKind, type LotDetail } from '../../../../shared/api/lots.ts';
 import { Notice } from '../../../components/ui/notice.tsx';
 import { EmptyState, Panel } from '../../../components/ui/page.tsx';
+import { ScrollBox } from '../../../components/ui/scroll-box.tsx';
 import { ApiError } from '../../../lib/api-client.ts';
 import { useUploadDocument } from '../api/upload-document.ts';
 import { formatDateTime } from './format.ts';
@@ -110,40 +111,42 @@ export function DocumentsPanel({ lot, canUpload }: { lot: LotDetail; canUpload: 
         {lot.documents.length === 0 ? (
           <EmptyState title="No documents yet">Attach the certificate of conformance and photos of the labels and packaging.</EmptyState>
         ) : (
-          <table className="w-full text-sm">
-            <caption className="sr-only">Documents of lot {lot.code}</caption>
-            <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
-              <tr>
-                <th scope="col" className="py-1 pr-3">File</th>
-                <th scope="col" className="py-1 pr-3">Kind</th>
-                <th scope="col" className="py-1 pr-3">Type</th>
-                <th scope="col" className="py-1 pr-3">Added</th>
-                <th scope="col" className="py-1">SHA-256</th>
-              </tr>
-            </thead>
-            <tbody>
-              {lot.documents.map((d) => (
-                <tr key={d.id} className="border-t border-rule/70 align-top">
-                  <td className="py-1.5 pr-3">
-                    <a href={d.contentUrl} className="font-semibold text-copper-dark underline-offset-2 hover:underline" download>
-                      {d.originalName}
-                    </a>
-                    <span className="ml-1 text-xs text-ink-faint">{size(d.sizeBytes)}</span>
-                  </td>
-                  <td className="py-1.5 pr-3">{DOCUMENT_KIND_LABELS[d.kind]}</td>
-                  <td className="py-1.5 pr-3 font-mono text-xs">{d.mediaType}</td>
-                  <td className="py-1.5 pr-3 text-xs">
-                    {formatDateTime(d.uploadedAt)}
-                    <br />
-                    {d.uploadedBy.name}
-                  </td>
-                  <td className="py-1.5 font-mono text-xs text-ink-soft" title={d.sha256}>
-                    {d.sha256.slice(0, 12)}…
-                  </td>
+          <ScrollBox label={`Documents of lot ${lot.code}`}>
+            <table className="w-full text-sm">
+              <caption className="sr-only">Documents of lot {lot.code}</caption>
+              <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
+                <tr>
+                  <th scope="col" className="py-1 pr-3">File</th>
+                  <th scope="col" className="py-1 pr-3">Kind</th>
+                  <th scope="col" className="py-1 pr-3">Type</th>
+                  <th scope="col" className="py-1 pr-3">Added</th>
+                  <th scope="col" className="py-1">SHA-256</th>
                 </tr>
-              ))}
-            </tbody>
-          </table>
+              </thead>
+              <tbody>
+                {lot.documents.map((d) => (
+                  <tr key={d.id} className="border-t border-rule/70 align-top">
+                    <td className="py-1.5 pr-3">
+                      <a href={d.contentUrl} className="font-semibold text-copper-dark underline-offset-2 hover:underline" download>
+                        {d.originalName}
+                      </a>
+                      <span className="ml-1 text-xs text-ink-faint">{size(d.sizeBytes)}</span>
+                    </td>
+                    <td className="py-1.5 pr-3">{DOCUMENT_KIND_LABELS[d.kind]}</td>
+                    <td className="py-1.5 pr-3 font-mono text-xs">{d.mediaType}</td>
+                    <td className="py-1.5 pr-3 text-xs">
+                      {formatDateTime(d.uploadedAt)}
+                      <br />
+                      {d.uploadedBy.name}
+                    </td>
+                    <td className="py-1.5 font-mono text-xs text-ink-soft" title={d.sha256}>
+                      {d.sha256.slice(0, 12)}…
+                    </td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </ScrollBox>
         )}
         {!canUpload && <Notice tone="info">Inspectors and quality engineers attach documents.</Notice>}
       </div>

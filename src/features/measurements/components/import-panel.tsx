@@ -200,7 +200,7 @@ export function ImportPanel({ lotId, session, onImported }: { lotId: number; ses
             <span>{upload !== null && upload < 1 ? `Uploading… ${Math.round(upload * 100)} %` : (phase?.message ?? 'Waiting for the server…')}</span>
             {phase && phase.total > 0 && <span className="num text-ink-soft">{Math.round((100 * phase.done) / phase.total)} %</span>}
           </div>
-          <div className="h-2 overflow-hidden rounded bg-paper" role="progressbar" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(100 * (upload ?? 0))}>
+          <div className="h-2 overflow-hidden rounded bg-paper" role="progressbar" aria-label="Import progress" aria-valuemin={0} aria-valuemax={100} aria-valuenow={Math.round(100 * (upload ?? 0))}>
             <div className="h-full bg-copper transition-all" style={{ width: `${upload !== null && upload < 1 ? 100 * upload : phase && phase.total ? (100 * phase.done) / phase.total : 100}%` }} />
           </div>
         </div>

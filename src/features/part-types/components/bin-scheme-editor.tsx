@@ -110,7 +110,8 @@ export function BinSchemeEditor({ partTypeId, limits, base, baseIsCurrent, onSav
 
       <BinStrip bins={draftsToBins(drafts)} limits={limits} />
 
-      <div className="overflow-x-auto rounded-lg border border-rule">
+      {/* relative: the sr-only labels of the inputs are clipped by this box instead of widening the page */}
+      <div className="relative overflow-x-auto rounded-lg border border-rule">
         <table className="w-full border-collapse text-sm">
           <caption className="sr-only">Bins of the scheme being edited</caption>
           <thead className="bg-paper text-left text-xs font-bold uppercase tracking-wide text-ink-soft">

@@ -64,7 +64,7 @@ export function BinSchemePanel({ part, canEdit }: { part: PartTypeRow; canEdit: 
   };
 
   return (
-    <div className="grid gap-5 xl:grid-cols-[minmax(0,1fr)_22rem]">
+    <div className="grid grid-cols-1 gap-5 xl:grid-cols-[minmax(0,1fr)_22rem]">
       <div ref={editorRef} className="flex flex-col gap-3">
         <Notice tone="info" title="Versions freeze once used">
           New lots are binned by the current (highest) version. A version a lot has used never changes: saving an edit of it

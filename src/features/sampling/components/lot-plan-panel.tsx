@@ -69,7 +69,7 @@ export function LotPlanPanel({ data, canRecordCorrectiveAction }: { data: LotPla
                 {done}/{plan.sampleSize}
               </span>
             </div>
-            <div className="mt-1 h-2 overflow-hidden rounded bg-paper" role="progressbar" aria-valuemin={0} aria-valuemax={plan.sampleSize} aria-valuenow={done}>
+            <div className="mt-1 h-2 overflow-hidden rounded bg-paper" role="progressbar" aria-label="Parts of the sample measured" aria-valuemin={0} aria-valuemax={plan.sampleSize} aria-valuenow={done}>
               <div className={`h-full ${data.remaining > 0 ? 'bg-copper' : 'bg-pass'}`} style={{ width: `${(100 * done) / plan.sampleSize}%` }} />
             </div>
           </div>
