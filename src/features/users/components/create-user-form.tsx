@@ -46,7 +46,7 @@ export function CreateUserForm() {
         name="password"
         type="password"
         autoComplete="new-password"
-        hint="At least 10 characters. Hand it over in person."
+        hint="At least 10 characters, not the name or e-mail, not a common password. Hand it over in person."
         value={form.password}
         onChange={set('password')}
         error={err?.fieldError('password')}
