@@ -85,6 +85,28 @@ function fromIndexHtml(distDir: string): { initial: string[]; css: string[] } {
   return { initial, css };
 }
 
+/** Static imports (`import … from "./x.js"`, not `import("./x.js")`) of a built chunk, as paths relative to the dist folder. */
+function staticImports(distDir: string, rel: string): string[] {
+  const code = fs.readFileSync(path.join(distDir, rel), 'utf8');
+  const out: string[] = [];
+  for (const m of code.matchAll(/(?:^|[;}\n])\s*import\s*(?:[\w$*{}\s,]+from\s*)?["'](\.{1,2}\/[^"']+\.js)["']/g)) {
+    out.push(path.posix.normalize(path.posix.join(path.posix.dirname(rel), m[1])));
+  }
+  return out;
+}
+
+/** The first-load set closed over static imports (a build without modulepreload links still loads them). */
+function withStaticImports(distDir: string, initial: string[]): string[] {
+  const seen = new Set<string>();
+  const visit = (rel: string) => {
+    if (seen.has(rel) || !fs.existsSync(path.join(distDir, rel))) return;
+    seen.add(rel);
+    for (const i of staticImports(distDir, rel)) visit(i);
+  };
+  for (const f of initial) visit(f);
+  return [...seen];
+}
+
 function listFiles(dir: string, root = dir): string[] {
   return fs.readdirSync(dir, { withFileTypes: true }).flatMap((e) => {
     const full = path.join(dir, e.name);
@@ -102,7 +124,7 @@ export async function benchBundle(opts: { distDir?: string; build?: boolean } = 
   if (!fs.existsSync(path.join(distDir, 'index.html'))) throw new Error(`No built client in ${distDir}: run vite build (or pass --build).`);
   const fromM = fromManifest(distDir);
   const found = fromM ?? fromIndexHtml(distDir);
-  const initial = [...new Set(found.initial)].map((f) => measure(distDir, f));
+  const initial = withStaticImports(distDir, [...new Set(found.initial)]).map((f) => measure(distDir, f));
   const initialSet = new Set(initial.map((f) => f.file));
   const allJs = listFiles(distDir).filter((f) => f.endsWith('.js') && !f.startsWith('.vite'));
   const later = allJs.filter((f) => !initialSet.has(f)).map((f) => measure(distDir, f));
