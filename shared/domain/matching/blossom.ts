@@ -253,6 +253,11 @@ class BlossomSolver {
 
   /** Stores the current duals of top-level b and its leaves (before b stops being top-level or labelled). */
   private settle(b: number): void {
+    if (b < this.n) {
+      this.dualVar[b] = this.vDual(b);
+      this.timeRef[b] = this.now;
+      return;
+    }
     for (const v of this.leaves(b, [])) {
       this.dualVar[v] = this.vDual(v);
       this.timeRef[v] = this.now;
@@ -351,11 +356,15 @@ class BlossomSolver {
     this.setTopLabel(b, t, root);
     this.labelEnd[w] = p;
     this.labelEnd[b] = p;
-    const lv = this.leaves(b, []);
-    for (const v of lv) this.timeRef[v] = this.now;
-    if (t === 1) {
-      for (const v of lv) this.becameOuter(v);
+    if (b < this.n) {
+      this.timeRef[b] = this.now;
+      if (t === 1) this.becameOuter(b);
     } else {
+      const lv = this.leaves(b, []);
+      for (const v of lv) this.timeRef[v] = this.now;
+      if (t === 1) for (const v of lv) this.becameOuter(v);
+    }
+    if (t !== 1) {
       if (b >= this.n) this.events.push(this.now + (this.dualVar[b] as number), 8 * b + KIND_BLOSSOM);
       const mb = this.mate[this.blossomBase[b] as number] as number;
       this.assignLabel(this.endpoint[mb] as number, 1, mb ^ 1);
@@ -622,14 +631,16 @@ class BlossomSolver {
     const vertices: number[] = [];
     for (const x of tops) this.leaves(x, vertices);
     for (const b of wasOuterZero) this.expandBlossom(b, true);
+    const { allowEdge, endpoint, label } = this;
     for (const x of vertices) {
+      const bx = this.top(x);
       for (const p of this.adj[x] as number[]) {
-        this.allowEdge[p >> 1] = 0;
+        allowEdge[p >> 1] = 0;
         // An unlabelled neighbour whose best edge came from x: x no longer moves its dual, so
         // that edge's event time is stale and another edge may now be first.
-        const w = this.endpoint[p] as number;
+        const w = endpoint[p] as number;
         const bw = this.top(w);
-        if (this.label[bw] !== 0 || bw === this.top(x)) continue;
+        if (label[bw] !== 0 || bw === bx) continue;
         const k = this.bestFree[w] as number;
         if (k !== -1 && !this.isFreeEdge(w, k)) this.recomputeFree(w);
       }
@@ -687,10 +698,16 @@ class BlossomSolver {
   private recomputeFree(w: number): void {
     let best = -1;
     let bestSlack = Infinity;
+    const { endpoint, label, wt, dualVar, timeRef } = this;
+    const now = this.now;
+    const bx = this.top(w);
+    const dx = this.vDual(w);
     for (const p of this.adj[w] as number[]) {
       const k = p >> 1;
-      if (!this.isFreeEdge(w, k)) continue;
-      const s = this.slack(k);
+      const u = endpoint[p] as number;
+      const bu = this.top(u);
+      if (bu === bx || label[bu] !== 1) continue;
+      const s = dx + (dualVar[u] as number) - (now - (timeRef[u] as number)) - 2 * (wt[k] as number);
       if (s < bestSlack) {
         bestSlack = s;
         best = k;
@@ -704,10 +721,16 @@ class BlossomSolver {
   private recomputeOuter(v: number): void {
     let best = -1;
     let bestSlack = Infinity;
+    const { endpoint, label, wt, dualVar, timeRef } = this;
+    const now = this.now;
+    const bx = this.top(v);
+    const dx = this.vDual(v);
     for (const p of this.adj[v] as number[]) {
       const k = p >> 1;
-      if (!this.isOuterEdge(v, k)) continue;
-      const s = this.slack(k);
+      const u = endpoint[p] as number;
+      const bu = this.top(u);
+      if (bu === bx || label[bu] !== 1) continue;
+      const s = dx + (dualVar[u] as number) - (now - (timeRef[u] as number)) - 2 * (wt[k] as number);
       if (s < bestSlack) {
         bestSlack = s;
         best = k;
@@ -722,23 +745,33 @@ class BlossomSolver {
     const { queue, label } = this;
     while (queue.length > 0) {
       const v = queue.pop() as number;
-      if (label[this.top(v)] !== 1) continue;
+      let bv = this.top(v);
+      if (label[bv] !== 1) continue;
+      // v is outer while it is scanned (a blossom formed meanwhile is outer too), so its dual
+      // is fixed until the next dual step.
+      const dv = this.vDual(v);
+      const { endpoint, allowEdge, wt, dualVar, timeRef } = this;
+      const now = this.now;
       const list = this.adj[v] as number[];
       for (let a = 0; a < list.length; a++) {
         const p = list[a] as number;
         const k = p >> 1;
-        if (this.top(v) === this.top(this.endpoint[p] as number)) continue;
-        if (this.allowEdge[k] === 0) {
-          if (this.slack(k) > 0) {
-            const w = this.endpoint[p] as number;
-            const lw = label[this.top(w)];
+        const w = endpoint[p] as number;
+        const bw = this.top(w);
+        if (bv === bw) continue;
+        if (allowEdge[k] === 0) {
+          const lw = label[bw];
+          const dw = lw === 1 ? (dualVar[w] as number) - (now - (timeRef[w] as number)) : lw === 2 ? (dualVar[w] as number) + (now - (timeRef[w] as number)) : (dualVar[w] as number);
+          const sk = dv + dw - 2 * (wt[k] as number);
+          if (sk > 0) {
             if (lw === 1) this.offerOuter(v, k);
             else if (lw === 0) this.offerFree(w, k);
             continue;
           }
-          this.allow(k);
+          allowEdge[k] = 1;
         }
         if (this.useTightEdge(v, p)) return true;
+        bv = this.top(v);
       }
     }
     return false;

@@ -1,12 +1,12 @@
 import { solveAssignment } from './assignment.ts';
 import { type LazyEdges, solveMaxWeightMatching } from './blossom.ts';
-import { type PairItems, collectNeighbours, itemsCompatible, itemsMismatch } from './items.ts';
+import { type PairItems, collectNeighbours, firstAfter, itemsCompatible, itemsMismatch, vbeBuckets } from './items.ts';
 import { hfeWithinTolerance } from './tolerance.ts';
 
 /** Cheapest compatible edges per item in the graph of the LP relaxation (step 3). */
 const NARROW = 8;
 /** … and in the graph the blossom algorithm starts from (step 4). */
-const WIDE = 64;
+const WIDE = 16;
 
 export interface PairSolution {
   /** Matched item pairs [a, b] with a < b. */
@@ -92,35 +92,53 @@ export function solveMaxPairs(it: PairItems): PairSolution {
   };
   let edgesCompatible = 0;
   const t = it.hfeTolerancePct;
+  const bk = vbeBuckets(it);
   for (let a = 0; a < n; a++) {
     const ha = it.hLo[a] as number;
-    for (let b = a + 1; b < n; b++) {
-      if (!hfeWithinTolerance(ha, it.hLo[b] as number, t)) break;
-      if (!itemsCompatible(it, a, b)) continue;
-      edgesCompatible++;
-      const q = costOf(a, b);
-      offer(a, b, q);
-      offer(b, a, q);
+    const own = bk.bucketOf[a] as number;
+    for (let r = 0; r < 3; r++) {
+      const i = r === 0 ? own : r === 1 ? (bk.below[own] as number) : (bk.above[own] as number);
+      if (i < 0) continue;
+      const end = bk.start[i + 1] as number;
+      for (let s = i === own ? (bk.slot[a] as number) + 1 : firstAfter(bk, i, a); s < end; s++) {
+        const b = bk.members[s] as number;
+        if (!hfeWithinTolerance(ha, it.hLo[b] as number, t)) break;
+        if (!itemsCompatible(it, a, b)) continue;
+        edgesCompatible++;
+        const q = costOf(a, b);
+        offer(a, b, q);
+        offer(b, a, q);
+      }
     }
   }
   // Sort each item's list by cost; d_k(a) = k-th cheapest cost (Infinity if a has fewer edges).
-  const order: number[] = [];
   const boundOf = (k: number): Float64Array => {
     const d = new Float64Array(n);
     for (let a = 0; a < n; a++) d[a] = (count[a] as number) < k ? Infinity : (topQ[a * WIDE + k - 1] as number);
     return d;
   };
+  // Each list is a max-heap: popping the largest to the end, one by one, leaves it ascending.
   for (let a = 0; a < n; a++) {
     const base = a * WIDE;
-    const c = count[a] as number;
-    order.length = 0;
-    for (let s = 0; s < c; s++) order.push(s);
-    order.sort((x, y) => (topQ[base + x] as number) - (topQ[base + y] as number));
-    const q = order.map((s) => topQ[base + s] as number);
-    const j = order.map((s) => topJ[base + s] as number);
-    for (let s = 0; s < c; s++) {
-      topQ[base + s] = q[s] as number;
-      topJ[base + s] = j[s] as number;
+    for (let size = count[a] as number; size > 1; ) {
+      size--;
+      const q = topQ[base + size] as number;
+      const j = topJ[base + size] as number;
+      topQ[base + size] = topQ[base] as number;
+      topJ[base + size] = topJ[base] as number;
+      let i = 0;
+      for (;;) {
+        const l = 2 * i + 1;
+        if (l >= size) break;
+        const r = l + 1;
+        const child = r < size && (topQ[base + r] as number) > (topQ[base + l] as number) ? r : l;
+        if ((topQ[base + child] as number) <= q) break;
+        topQ[base + i] = topQ[base + child] as number;
+        topJ[base + i] = topJ[base + child] as number;
+        i = child;
+      }
+      topQ[base + i] = q;
+      topJ[base + i] = j;
     }
   }
 
@@ -157,7 +175,7 @@ export function solveMaxPairs(it: PairItems): PairSolution {
     const st = ++stamp;
     for (const b of held[a] as number[]) mark[b] = st;
     scratch.length = 0;
-    collectNeighbours(it, a, scratch);
+    collectNeighbours(it, bk, a, scratch);
     missingBuf.length = 0;
     for (const b of scratch) if (mark[b] !== st) missingBuf.push(b);
     return missingBuf;
