@@ -1,4 +1,4 @@
-import { MinHeap } from './min-heap.ts';
+import { IndexedMinHeap } from './min-heap.ts';
 
 /**
  * Maximum-weight matching on a general graph: Edmonds' blossom algorithm with the primal–dual
@@ -119,8 +119,13 @@ class BlossomSolver {
   private wt: Float64Array;
   private endpoint: Int32Array;
   private m: number;
-  /** Per vertex: endpoint indices p of its edges (the other end is endpoint[p]). */
-  private readonly adj: number[][];
+  /**
+   * Per vertex, the endpoint indices p of its edges (the other end is endpoint[p]) as a list in
+   * typed arrays, in the order the edges were added: adjHead[v], then adjNext[p] until −1.
+   */
+  private readonly adjHead: Int32Array;
+  private readonly adjTail: Int32Array;
+  private adjNext: Int32Array;
   private readonly level: Float64Array | null;
   private readonly mate: Int32Array;
   /** Of top-level blossoms: 0 outside the forest, 1 outer (S), 2 inner (T); meaningless below the top. */
@@ -147,7 +152,8 @@ class BlossomSolver {
   private readonly bestFree: Int32Array;
   private readonly bestOuter: Int32Array;
   private readonly queue: number[] = [];
-  private readonly events = new MinHeap();
+  /** Pending events, at most one per (vertex or blossom, kind): id = 8·x + kind. */
+  private readonly events: IndexedMinHeap;
   private now = 0;
   /** Root vertex of the tree each labelled top-level blossom belongs to. */
   private readonly treeOf: Int32Array;
@@ -177,13 +183,14 @@ class BlossomSolver {
     this.wt = new Float64Array(cap);
     this.wt.set(graph.weight);
     this.endpoint = new Int32Array(2 * cap);
-    this.adj = [];
-    for (let v = 0; v < n; v++) this.adj.push([]);
+    this.adjHead = new Int32Array(n).fill(-1);
+    this.adjTail = new Int32Array(n).fill(-1);
+    this.adjNext = new Int32Array(2 * cap);
     for (let k = 0; k < m; k++) {
       this.endpoint[2 * k] = ei[k] as number;
       this.endpoint[2 * k + 1] = ej[k] as number;
-      (this.adj[ei[k] as number] as number[]).push(2 * k + 1);
-      (this.adj[ej[k] as number] as number[]).push(2 * k);
+      this.link(ei[k] as number, 2 * k + 1);
+      this.link(ej[k] as number, 2 * k);
     }
     this.level = lazy ? lazy.level.slice() : null;
 
@@ -207,6 +214,7 @@ class BlossomSolver {
     this.treeOf = new Int32Array(2 * n).fill(-1);
     this.treeTops = new Array<number[] | null>(n).fill(null);
     this.visitMark = new Int32Array(2 * n);
+    this.events = new IndexedMinHeap(16 * n);
 
     if (start) {
       for (let v = 0; v < n; v++) {
@@ -288,6 +296,18 @@ class BlossomSolver {
     const endpoint = new Int32Array(2 * cap);
     endpoint.set(this.endpoint);
     this.endpoint = endpoint;
+    const next = new Int32Array(2 * cap);
+    next.set(this.adjNext);
+    this.adjNext = next;
+  }
+
+  /** Appends endpoint p to vertex v's list. */
+  private link(v: number, p: number): void {
+    const tail = this.adjTail[v] as number;
+    if (tail === -1) this.adjHead[v] = p;
+    else this.adjNext[tail] = p;
+    this.adjTail[v] = p;
+    this.adjNext[p] = -1;
   }
 
   private addEdge(i: number, j: number, w: number): number {
@@ -298,8 +318,8 @@ class BlossomSolver {
     this.wt[k] = w;
     this.endpoint[2 * k] = i;
     this.endpoint[2 * k + 1] = j;
-    (this.adj[i] as number[]).push(2 * k + 1);
-    (this.adj[j] as number[]).push(2 * k);
+    this.link(i, 2 * k + 1);
+    this.link(j, 2 * k);
     return k;
   }
 
@@ -338,10 +358,10 @@ class BlossomSolver {
   private becameOuter(v: number): void {
     this.queue.push(v);
     this.bestOuter[v] = -1;
-    if (!this.maxCardinality) this.events.push(this.now + this.vDual(v), 8 * v + KIND_VERTEX);
+    if (!this.maxCardinality) this.events.set(this.now + this.vDual(v), 8 * v + KIND_VERTEX);
     const level = this.level;
     if (level !== null && (level[v] as number) > -Infinity) {
-      this.events.push(this.now + this.vDual(v) - (level[v] as number), 8 * v + KIND_LEVEL);
+      this.events.set(this.now + this.vDual(v) - (level[v] as number), 8 * v + KIND_LEVEL);
     }
   }
 
@@ -365,7 +385,7 @@ class BlossomSolver {
       if (t === 1) for (const v of lv) this.becameOuter(v);
     }
     if (t !== 1) {
-      if (b >= this.n) this.events.push(this.now + (this.dualVar[b] as number), 8 * b + KIND_BLOSSOM);
+      if (b >= this.n) this.events.set(this.now + (this.dualVar[b] as number), 8 * b + KIND_BLOSSOM);
       const mb = this.mate[this.blossomBase[b] as number] as number;
       this.assignLabel(this.endpoint[mb] as number, 1, mb ^ 1);
     }
@@ -500,7 +520,7 @@ class BlossomSolver {
       }
       const bv0 = at(childs, j);
       this.setTopLabel(bv0, 2, root);
-      if (bv0 >= n) this.events.push(this.now + (this.dualVar[bv0] as number), 8 * bv0 + KIND_BLOSSOM);
+      if (bv0 >= n) this.events.set(this.now + (this.dualVar[bv0] as number), 8 * bv0 + KIND_BLOSSOM);
       labelEnd[endpoint[p ^ 1] as number] = p;
       labelEnd[bv0] = p;
       j += jStep;
@@ -528,7 +548,7 @@ class BlossomSolver {
   private labelFromOuter(bv: number): void {
     const { endpoint, label } = this;
     for (const x of this.leaves(bv, [])) {
-      for (const p of this.adj[x] as number[]) {
+      for (let p = this.adjHead[x] as number; p !== -1; p = this.adjNext[p] as number) {
         const bu = this.top(endpoint[p] as number);
         if (bu !== bv && label[bu] === 1 && this.slack(p >> 1) === 0) {
           this.allow(p >> 1);
@@ -634,7 +654,7 @@ class BlossomSolver {
     const { allowEdge, endpoint, label } = this;
     for (const x of vertices) {
       const bx = this.top(x);
-      for (const p of this.adj[x] as number[]) {
+      for (let p = this.adjHead[x] as number; p !== -1; p = this.adjNext[p] as number) {
         allowEdge[p >> 1] = 0;
         // An unlabelled neighbour whose best edge came from x: x no longer moves its dual, so
         // that edge's event time is stale and another edge may now be first.
@@ -681,7 +701,7 @@ class BlossomSolver {
     const s = this.slack(k);
     if (cur === -1 || !this.isFreeEdge(w, cur) || s < this.slack(cur)) {
       this.bestFree[w] = k;
-      this.events.push(this.now + s, 8 * w + KIND_FREE);
+      this.events.set(this.now + s, 8 * w + KIND_FREE);
     }
   }
 
@@ -690,7 +710,7 @@ class BlossomSolver {
     const s = this.slack(k);
     if (cur === -1 || !this.isOuterEdge(v, cur) || s < this.slack(cur)) {
       this.bestOuter[v] = k;
-      this.events.push(this.now + s / 2, 8 * v + KIND_OUTER);
+      this.events.set(this.now + s / 2, 8 * v + KIND_OUTER);
     }
   }
 
@@ -702,7 +722,7 @@ class BlossomSolver {
     const now = this.now;
     const bx = this.top(w);
     const dx = this.vDual(w);
-    for (const p of this.adj[w] as number[]) {
+    for (let p = this.adjHead[w] as number; p !== -1; p = this.adjNext[p] as number) {
       const k = p >> 1;
       const u = endpoint[p] as number;
       const bu = this.top(u);
@@ -714,7 +734,7 @@ class BlossomSolver {
       }
     }
     this.bestFree[w] = best;
-    if (best >= 0) this.events.push(this.now + bestSlack, 8 * w + KIND_FREE);
+    if (best >= 0) this.events.set(this.now + bestSlack, 8 * w + KIND_FREE);
   }
 
   /** Finds outer vertex v's least-slack edge to another outer blossom again. */
@@ -725,7 +745,7 @@ class BlossomSolver {
     const now = this.now;
     const bx = this.top(v);
     const dx = this.vDual(v);
-    for (const p of this.adj[v] as number[]) {
+    for (let p = this.adjHead[v] as number; p !== -1; p = this.adjNext[p] as number) {
       const k = p >> 1;
       const u = endpoint[p] as number;
       const bu = this.top(u);
@@ -737,7 +757,7 @@ class BlossomSolver {
       }
     }
     this.bestOuter[v] = best;
-    if (best >= 0) this.events.push(this.now + bestSlack / 2, 8 * v + KIND_OUTER);
+    if (best >= 0) this.events.set(this.now + bestSlack / 2, 8 * v + KIND_OUTER);
   }
 
   /** Follows tight edges from the queued S-vertices; true when the matching was augmented. */
@@ -752,9 +772,7 @@ class BlossomSolver {
       const dv = this.vDual(v);
       const { endpoint, allowEdge, wt, dualVar, timeRef } = this;
       const now = this.now;
-      const list = this.adj[v] as number[];
-      for (let a = 0; a < list.length; a++) {
-        const p = list[a] as number;
+      for (let p = this.adjHead[v] as number; p !== -1; p = this.adjNext[p] as number) {
         const k = p >> 1;
         const w = endpoint[p] as number;
         const bw = this.top(w);
@@ -855,7 +873,7 @@ class BlossomSolver {
         due = this.now + this.vDual(x) - lv;
       }
       if (due !== time) {
-        events.push(due, id);
+        events.set(due, id);
         continue;
       }
       this.now = time;
@@ -890,7 +908,7 @@ class BlossomSolver {
   private fetchEdges(v: number, during = true): void {
     const { to, weight, level } = (this.lazy as LazyEdges).fetch(v);
     (this.level as Float64Array)[v] = level;
-    if (during && level > -Infinity) this.events.push(this.now + this.vDual(v) - level, 8 * v + KIND_LEVEL);
+    if (during && level > -Infinity) this.events.set(this.now + this.vDual(v) - level, 8 * v + KIND_LEVEL);
     for (let i = 0; i < to.length; i++) {
       const u = to[i] as number;
       const k = this.addEdge(v, u, weight[i] as number);

@@ -70,3 +70,89 @@ export class MinHeap {
     ids[i] = lastId;
   }
 }
+
+/**
+ * Binary min-heap holding at most one entry per id (0 … capacity − 1): setting an id that is
+ * already in the heap moves its entry to the new key. Keeps the heap as small as the set of
+ * pending events, instead of one stale entry per superseded key.
+ */
+export class IndexedMinHeap {
+  private readonly keys: Float64Array;
+  private readonly ids: Int32Array;
+  /** Heap position of each id, or −1. */
+  private readonly pos: Int32Array;
+  private count = 0;
+
+  constructor(capacity: number) {
+    this.keys = new Float64Array(capacity);
+    this.ids = new Int32Array(capacity);
+    this.pos = new Int32Array(capacity).fill(-1);
+  }
+
+  get size(): number {
+    return this.count;
+  }
+
+  get topKey(): number {
+    return this.keys[0] as number;
+  }
+
+  get topId(): number {
+    return this.ids[0] as number;
+  }
+
+  /** Inserts id with key, or gives the id's entry the new key. */
+  set(key: number, id: number): void {
+    const at = this.pos[id] as number;
+    if (at === -1) {
+      this.siftUp(this.count++, key, id);
+    } else if (key < (this.keys[at] as number)) {
+      this.siftUp(at, key, id);
+    } else {
+      this.siftDown(at, key, id, this.count);
+    }
+  }
+
+  /** Removes the smallest entry. */
+  pop(): void {
+    if (this.count === 0) return;
+    this.pos[this.ids[0] as number] = -1;
+    const size = --this.count;
+    if (size > 0) this.siftDown(0, this.keys[size] as number, this.ids[size] as number, size);
+  }
+
+  private siftUp(start: number, key: number, id: number): void {
+    const { keys, ids, pos } = this;
+    let i = start;
+    while (i > 0) {
+      const parent = (i - 1) >> 1;
+      if ((keys[parent] as number) <= key) break;
+      keys[i] = keys[parent] as number;
+      ids[i] = ids[parent] as number;
+      pos[ids[i] as number] = i;
+      i = parent;
+    }
+    keys[i] = key;
+    ids[i] = id;
+    pos[id] = i;
+  }
+
+  private siftDown(start: number, key: number, id: number, size: number): void {
+    const { keys, ids, pos } = this;
+    let i = start;
+    for (;;) {
+      const l = 2 * i + 1;
+      if (l >= size) break;
+      const r = l + 1;
+      const child = r < size && (keys[r] as number) < (keys[l] as number) ? r : l;
+      if ((keys[child] as number) >= key) break;
+      keys[i] = keys[child] as number;
+      ids[i] = ids[child] as number;
+      pos[ids[i] as number] = i;
+      i = child;
+    }
+    keys[i] = key;
+    ids[i] = id;
+    pos[id] = i;
+  }
+}

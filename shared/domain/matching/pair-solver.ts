@@ -52,7 +52,6 @@ export function solveMaxPairs(it: PairItems): PairSolution {
   const S = mismatchScale(n);
   const P = n * S + 1;
   const costOf = (a: number, b: number): number => Math.round(itemsMismatch(it, a, b) * S);
-  const keyOf = (a: number, b: number): number => (a < b ? a * n + b : b * n + a);
 
   // 2. The WIDE cheapest compatible edges of every item, in one sweep over the hFE windows
   //    (a bounded max-heap per item), then sorted by cost.
@@ -142,23 +141,23 @@ export function solveMaxPairs(it: PairItems): PairSolution {
     }
   }
 
-  // The graph the solvers hold: adjacency lists for membership tests, keys for the edge list.
-  const held: number[][] = [];
-  for (let a = 0; a < n; a++) held.push([]);
+  // The graph the solvers hold: its edge list (with costs), and per item the list of its
+  // neighbours for membership tests.
+  const held = new HeldGraph(n, n * (NARROW + 4));
   const mark = new Int32Array(n).fill(-1);
   let stamp = 0;
-  const keys: number[] = [];
-  const hold = (a: number, b: number): void => {
-    (held[a] as number[]).push(b);
-    (held[b] as number[]).push(a);
-    keys.push(keyOf(a, b));
+  const hold = (a: number, b: number): void => held.add(a, b, costOf(a, b));
+  /** Marks a's held neighbours with a new stamp and returns it. */
+  const markHeld = (a: number): number => {
+    const st = ++stamp;
+    for (let s = held.head[a] as number; s !== -1; s = held.next[s] as number) mark[held.other(s)] = st;
+    return st;
   };
   /** Holds the first k entries of every item's sorted list. */
   const holdNearest = (k: number): void => {
     for (let a = 0; a < n; a++) {
       const base = a * WIDE;
-      const st = ++stamp;
-      for (const b of held[a] as number[]) mark[b] = st;
+      const st = markHeld(a);
       const c = Math.min(k, count[a] as number);
       for (let s = 0; s < c; s++) {
         const b = topJ[base + s] as number;
@@ -172,8 +171,7 @@ export function solveMaxPairs(it: PairItems): PairSolution {
   const missingBuf: number[] = [];
   /** Compatible neighbours of a that the graph does not hold yet (a reused array). */
   const missing = (a: number): number[] => {
-    const st = ++stamp;
-    for (const b of held[a] as number[]) mark[b] = st;
+    const st = markHeld(a);
     scratch.length = 0;
     collectNeighbours(it, bk, a, scratch);
     missingBuf.length = 0;
@@ -188,9 +186,8 @@ export function solveMaxPairs(it: PairItems): PairSolution {
   let lp: Relaxation;
   for (;;) {
     rounds++;
-    const g = edgeArrays(n, keys, costOf);
-    lp = solveRelaxation(n, g.edgeA, g.edgeB, g.cost, P);
-    const before = keys.length;
+    lp = solveRelaxation(n, held.edgeA(), held.edgeB(), held.costs(), P);
+    const before = held.m;
     for (let a = 0; a < n; a++) {
       const pa = lp.pi[a] as number;
       if (pa <= (bound[a] as number) / 2) continue;
@@ -198,9 +195,9 @@ export function solveMaxPairs(it: PairItems): PairSolution {
         if (costOf(a, b) < pa + (lp.pi[b] as number)) hold(a, b);
       }
     }
-    if (keys.length === before) break;
+    if (held.m === before) break;
   }
-  if (lp.oddCycles === 0) return result(lp.mate, keys.length);
+  if (lp.oddCycles === 0) return result(lp.mate, held.m);
 
   // 4. Odd cycles left: blossom algorithm on the WIDE graph with lazily fetched edges (an item
   //    whose dual already exceeds d/2 gets them before the start). In max-weight form
@@ -212,11 +209,11 @@ export function solveMaxPairs(it: PairItems): PairSolution {
     const d = bound[a] as number;
     level[a] = d === Infinity ? -Infinity : 4 * P - 2 * d;
   }
-  const g = edgeArrays(n, keys, costOf);
   const weightBuf: number[] = [];
-  const exact = solveFromRelaxation(n, g.edgeA, g.edgeB, g.cost, P, lp, {
+  const exact = solveFromRelaxation(n, held.edgeA(), held.edgeB(), held.costs(), P, lp, {
     level,
-    capacity: edgesCompatible,
+    // Room for the fetched edges too; the solver grows its arrays if they need more.
+    capacity: Math.min(edgesCompatible, 2 * held.m),
     fetch(a) {
       const to = missing(a);
       weightBuf.length = 0;
@@ -227,7 +224,7 @@ export function solveMaxPairs(it: PairItems): PairSolution {
       return { to, weight: weightBuf, level: -Infinity };
     },
   });
-  return result(exact.mate, keys.length);
+  return result(exact.mate, held.m);
 
   function result(mate: Int32Array, edgesSolved: number): PairSolution {
     const pairs: [number, number][] = [];
@@ -239,20 +236,71 @@ export function solveMaxPairs(it: PairItems): PairSolution {
   }
 }
 
-function edgeArrays(n: number, keys: number[], costOf: (a: number, b: number) => number) {
-  const m = keys.length;
-  const edgeA = new Int32Array(m);
-  const edgeB = new Int32Array(m);
-  const cost = new Float64Array(m);
-  for (let e = 0; e < m; e++) {
-    const key = keys[e] as number;
-    const a = Math.floor(key / n);
-    const b = key - a * n;
-    edgeA[e] = a;
-    edgeB[e] = b;
-    cost[e] = costOf(a, b);
+/**
+ * The edges held so far: edge e joins ea[e] and eb[e] at cost q[e]; its two ends are slots 2e
+ * (at ea[e]) and 2e + 1 (at eb[e]), chained per item from head[item] through next[slot].
+ */
+class HeldGraph {
+  m = 0;
+  readonly head: Int32Array;
+  next: Int32Array;
+  private ea: Int32Array;
+  private eb: Int32Array;
+  private q: Float64Array;
+
+  constructor(n: number, capacity: number) {
+    const cap = Math.max(16, capacity);
+    this.head = new Int32Array(n).fill(-1);
+    this.next = new Int32Array(2 * cap);
+    this.ea = new Int32Array(cap);
+    this.eb = new Int32Array(cap);
+    this.q = new Float64Array(cap);
   }
-  return { edgeA, edgeB, cost };
+
+  add(a: number, b: number, cost: number): void {
+    const e = this.m++;
+    if (e === this.ea.length) this.grow(2 * e);
+    this.ea[e] = a < b ? a : b;
+    this.eb[e] = a < b ? b : a;
+    this.q[e] = cost;
+    const sa = 2 * e + (a < b ? 0 : 1);
+    this.next[sa] = this.head[a] as number;
+    this.head[a] = sa;
+    this.next[sa ^ 1] = this.head[b] as number;
+    this.head[b] = sa ^ 1;
+  }
+
+  /** The item at the other end of slot s. */
+  other(s: number): number {
+    return (s & 1 ? this.ea[s >> 1] : this.eb[s >> 1]) as number;
+  }
+
+  edgeA(): Int32Array {
+    return this.ea.subarray(0, this.m);
+  }
+
+  edgeB(): Int32Array {
+    return this.eb.subarray(0, this.m);
+  }
+
+  costs(): Float64Array {
+    return this.q.subarray(0, this.m);
+  }
+
+  private grow(cap: number): void {
+    const ea = new Int32Array(cap);
+    ea.set(this.ea);
+    this.ea = ea;
+    const eb = new Int32Array(cap);
+    eb.set(this.eb);
+    this.eb = eb;
+    const q = new Float64Array(cap);
+    q.set(this.q);
+    this.q = q;
+    const next = new Int32Array(2 * cap);
+    next.set(this.next);
+    this.next = next;
+  }
 }
 
 interface Relaxation {
