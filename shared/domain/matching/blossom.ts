@@ -651,7 +651,14 @@ class BlossomSolver {
     const vertices: number[] = [];
     for (const x of tops) this.leaves(x, vertices);
     for (const b of wasOuterZero) this.expandBlossom(b, true);
-    const { allowEdge, endpoint, label } = this;
+    const { allowEdge, endpoint, label, visitMark } = this;
+    // Each vertex to look at again is recomputed once (labels do not change in this loop).
+    const again = ++this.visit;
+    const redo: number[] = [];
+    for (const x of vertices) {
+      visitMark[x] = again;
+      redo.push(x);
+    }
     for (const x of vertices) {
       const bx = this.top(x);
       for (let p = this.adjHead[x] as number; p !== -1; p = this.adjNext[p] as number) {
@@ -659,13 +666,17 @@ class BlossomSolver {
         // An unlabelled neighbour whose best edge came from x: x no longer moves its dual, so
         // that edge's event time is stale and another edge may now be first.
         const w = endpoint[p] as number;
+        if (visitMark[w] === again) continue;
         const bw = this.top(w);
         if (label[bw] !== 0 || bw === bx) continue;
         const k = this.bestFree[w] as number;
-        if (k !== -1 && !this.isFreeEdge(w, k)) this.recomputeFree(w);
+        if (k !== -1 && !this.isFreeEdge(w, k)) {
+          visitMark[w] = again;
+          redo.push(w);
+        }
       }
-      this.recomputeFree(x);
     }
+    for (const x of redo) this.recomputeFree(x);
   }
 
   /** Swaps matched and unmatched edges along the augmenting path through edge k. */

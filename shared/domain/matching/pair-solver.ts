@@ -13,9 +13,8 @@ export interface PairSolution {
   readonly pairs: [number, number][];
   /** LP rounds (sparse graph grown until the relaxation's duals held on the full graph). */
   readonly rounds: number;
-  /** Edges the solver ended up holding / compatible pairs in the full graph. */
+  /** Edges the solver ended up holding. */
   readonly edgesSolved: number;
-  readonly edgesCompatible: number;
 }
 
 /** Scale of the integer mismatch used as edge cost: q = round(mismatch · S), mismatch ∈ [0, 2]. */
@@ -48,13 +47,13 @@ export function mismatchScale(n: number): number {
  */
 export function solveMaxPairs(it: PairItems): PairSolution {
   const n = it.n;
-  if (n < 2) return { pairs: [], rounds: 0, edgesSolved: 0, edgesCompatible: 0 };
+  if (n < 2) return { pairs: [], rounds: 0, edgesSolved: 0 };
   const S = mismatchScale(n);
   const P = n * S + 1;
   const costOf = (a: number, b: number): number => Math.round(itemsMismatch(it, a, b) * S);
 
-  // 2. The WIDE cheapest compatible edges of every item, in one sweep over the hFE windows
-  //    (a bounded max-heap per item), then sorted by cost.
+  // 2. The WIDE cheapest compatible edges of every item (a bounded max-heap per item), then
+  //    sorted by cost.
   const topQ = new Float64Array(n * WIDE);
   const topJ = new Int32Array(n * WIDE);
   const count = new Int32Array(n);
@@ -89,28 +88,42 @@ export function solveMaxPairs(it: PairItems): PairSolution {
     topQ[base + i] = q;
     topJ[base + i] = b;
   };
-  let edgesCompatible = 0;
+  // Each item scans its own hFE windows in its Vbe bucket and the two next to it (vbeBuckets),
+  // outward from itself. Along a scan the hFE part of the mismatch only grows, and it alone
+  // bounds the cost from below: once it passes the item's current WIDE-th cheapest (with one unit
+  // to spare for rounding), nothing further along that scan can enter the list.
   const t = it.hfeTolerancePct;
+  const hScale = t > 0 ? (100 / t) * S : 0;
   const bk = vbeBuckets(it);
+  const { hLo, hHi } = it;
   for (let a = 0; a < n; a++) {
-    const ha = it.hLo[a] as number;
+    const ha = hLo[a] as number;
+    const hha = hHi[a] as number;
+    const base = a * WIDE;
     const own = bk.bucketOf[a] as number;
     for (let r = 0; r < 3; r++) {
       const i = r === 0 ? own : r === 1 ? (bk.below[own] as number) : (bk.above[own] as number);
       if (i < 0) continue;
+      const after = i === own ? (bk.slot[a] as number) + 1 : firstAfter(bk, i, a);
       const end = bk.start[i + 1] as number;
-      for (let s = i === own ? (bk.slot[a] as number) + 1 : firstAfter(bk, i, a); s < end; s++) {
+      for (let s = after; s < end; s++) {
         const b = bk.members[s] as number;
-        if (!hfeWithinTolerance(ha, it.hLo[b] as number, t)) break;
-        if (!itemsCompatible(it, a, b)) continue;
-        edgesCompatible++;
-        const q = costOf(a, b);
-        offer(a, b, q);
-        offer(b, a, q);
+        const hb = hLo[b] as number;
+        if (!hfeWithinTolerance(ha, hb, t)) break;
+        if (count[a] === WIDE && ((hb - ha) / ha) * hScale > (topQ[base] as number) + 1) break;
+        if (itemsCompatible(it, a, b)) offer(a, b, costOf(a, b));
+      }
+      const first = bk.start[i] as number;
+      for (let s = (i === own ? after - 1 : after) - 1; s >= first; s--) {
+        const b = bk.members[s] as number;
+        const hb = hLo[b] as number;
+        if (!hfeWithinTolerance(hb, hha, t)) break;
+        if (count[a] === WIDE && ((hha - hb) / hb) * hScale > (topQ[base] as number) + 1) break;
+        if (itemsCompatible(it, a, b)) offer(a, b, costOf(a, b));
       }
     }
   }
-  // Sort each item's list by cost; d_k(a) = k-th cheapest cost (Infinity if a has fewer edges).
+  // d_k(a) = k-th cheapest cost (Infinity if a has fewer edges), read once the lists are sorted.
   const boundOf = (k: number): Float64Array => {
     const d = new Float64Array(n);
     for (let a = 0; a < n; a++) d[a] = (count[a] as number) < k ? Infinity : (topQ[a * WIDE + k - 1] as number);
@@ -213,7 +226,7 @@ export function solveMaxPairs(it: PairItems): PairSolution {
   const exact = solveFromRelaxation(n, held.edgeA(), held.edgeB(), held.costs(), P, lp, {
     level,
     // Room for the fetched edges too; the solver grows its arrays if they need more.
-    capacity: Math.min(edgesCompatible, 2 * held.m),
+    capacity: 2 * held.m,
     fetch(a) {
       const to = missing(a);
       weightBuf.length = 0;
@@ -232,7 +245,7 @@ export function solveMaxPairs(it: PairItems): PairSolution {
       const b = mate[a] as number;
       if (b > a) pairs.push([a, b]);
     }
-    return { pairs, rounds, edgesSolved, edgesCompatible };
+    return { pairs, rounds, edgesSolved };
   }
 }
 
