@@ -120,12 +120,18 @@ class BlossomSolver {
   private endpoint: Int32Array;
   private m: number;
   /**
-   * Per vertex, the endpoint indices p of its edges (the other end is endpoint[p]) as a list in
-   * typed arrays, in the order the edges were added: adjHead[v], then adjNext[p] until −1.
+   * Per vertex, its edges in the order they were added, as a row of adjacent slots in three
+   * typed arrays: the endpoint index p (the other end is endpoint[p]), that other end, and the
+   * edge weight — rows adjStart[v] … adjStart[v] + adjLen[v] − 1, so the hot loops read memory in
+   * order. A row that outgrows its room (edges fetched later) moves to the end, with twice the room.
    */
-  private readonly adjHead: Int32Array;
-  private readonly adjTail: Int32Array;
-  private adjNext: Int32Array;
+  private readonly adjStart: Int32Array;
+  private readonly adjLen: Int32Array;
+  private readonly adjRoom: Int32Array;
+  private adjP: Int32Array;
+  private adjW: Int32Array;
+  private adjWt: Float64Array;
+  private adjUsed = 0;
   private readonly level: Float64Array | null;
   private readonly mate: Int32Array;
   /** Of top-level blossoms: 0 outside the forest, 1 outer (S), 2 inner (T); meaningless below the top. */
@@ -183,9 +189,22 @@ class BlossomSolver {
     this.wt = new Float64Array(cap);
     this.wt.set(graph.weight);
     this.endpoint = new Int32Array(2 * cap);
-    this.adjHead = new Int32Array(n).fill(-1);
-    this.adjTail = new Int32Array(n).fill(-1);
-    this.adjNext = new Int32Array(2 * cap);
+    this.adjStart = new Int32Array(n);
+    this.adjLen = new Int32Array(n);
+    this.adjRoom = new Int32Array(n);
+    for (let k = 0; k < m; k++) {
+      this.adjRoom[ei[k] as number]++;
+      this.adjRoom[ej[k] as number]++;
+    }
+    for (let v = 0; v < n; v++) {
+      this.adjRoom[v] = (this.adjRoom[v] as number) + 4;
+      this.adjStart[v] = this.adjUsed;
+      this.adjUsed += this.adjRoom[v] as number;
+    }
+    const room = this.adjUsed + 2 * (cap - m);
+    this.adjP = new Int32Array(room);
+    this.adjW = new Int32Array(room);
+    this.adjWt = new Float64Array(room);
     for (let k = 0; k < m; k++) {
       this.endpoint[2 * k] = ei[k] as number;
       this.endpoint[2 * k + 1] = ej[k] as number;
@@ -296,18 +315,39 @@ class BlossomSolver {
     const endpoint = new Int32Array(2 * cap);
     endpoint.set(this.endpoint);
     this.endpoint = endpoint;
-    const next = new Int32Array(2 * cap);
-    next.set(this.adjNext);
-    this.adjNext = next;
+
   }
 
-  /** Appends endpoint p to vertex v's list. */
+  /** Appends endpoint p (an edge of v) to v's row. */
   private link(v: number, p: number): void {
-    const tail = this.adjTail[v] as number;
-    if (tail === -1) this.adjHead[v] = p;
-    else this.adjNext[tail] = p;
-    this.adjTail[v] = p;
-    this.adjNext[p] = -1;
+    let len = this.adjLen[v] as number;
+    if (len === this.adjRoom[v]) {
+      const room = 2 * len + 4;
+      if (this.adjUsed + room > this.adjP.length) {
+        const size = 2 * (this.adjUsed + room);
+        const adjP = new Int32Array(size);
+        adjP.set(this.adjP);
+        this.adjP = adjP;
+        const adjW = new Int32Array(size);
+        adjW.set(this.adjW);
+        this.adjW = adjW;
+        const adjWt = new Float64Array(size);
+        adjWt.set(this.adjWt);
+        this.adjWt = adjWt;
+      }
+      const from = this.adjStart[v] as number;
+      this.adjP.copyWithin(this.adjUsed, from, from + len);
+      this.adjW.copyWithin(this.adjUsed, from, from + len);
+      this.adjWt.copyWithin(this.adjUsed, from, from + len);
+      this.adjStart[v] = this.adjUsed;
+      this.adjRoom[v] = room;
+      this.adjUsed += room;
+    }
+    const at = (this.adjStart[v] as number) + len++;
+    this.adjP[at] = p;
+    this.adjW[at] = this.endpoint[p] as number;
+    this.adjWt[at] = this.wt[p >> 1] as number;
+    this.adjLen[v] = len;
   }
 
   private addEdge(i: number, j: number, w: number): number {
@@ -547,8 +587,10 @@ class BlossomSolver {
   /** Labels unlabelled top-level bv as T when a tight edge joins one of its leaves to an S-vertex. */
   private labelFromOuter(bv: number): void {
     const { endpoint, label } = this;
+    const { adjP } = this;
     for (const x of this.leaves(bv, [])) {
-      for (let p = this.adjHead[x] as number; p !== -1; p = this.adjNext[p] as number) {
+      for (let i = this.adjStart[x] as number, e = i + (this.adjLen[x] as number); i < e; i++) {
+        const p = adjP[i] as number;
         const bu = this.top(endpoint[p] as number);
         if (bu !== bv && label[bu] === 1 && this.slack(p >> 1) === 0) {
           this.allow(p >> 1);
@@ -651,7 +693,7 @@ class BlossomSolver {
     const vertices: number[] = [];
     for (const x of tops) this.leaves(x, vertices);
     for (const b of wasOuterZero) this.expandBlossom(b, true);
-    const { allowEdge, endpoint, label, visitMark } = this;
+    const { allowEdge, adjP, adjW, label, visitMark } = this;
     // Each vertex to look at again is recomputed once (labels do not change in this loop).
     const again = ++this.visit;
     const redo: number[] = [];
@@ -661,11 +703,11 @@ class BlossomSolver {
     }
     for (const x of vertices) {
       const bx = this.top(x);
-      for (let p = this.adjHead[x] as number; p !== -1; p = this.adjNext[p] as number) {
-        allowEdge[p >> 1] = 0;
+      for (let i = this.adjStart[x] as number, e = i + (this.adjLen[x] as number); i < e; i++) {
+        allowEdge[(adjP[i] as number) >> 1] = 0;
         // An unlabelled neighbour whose best edge came from x: x no longer moves its dual, so
         // that edge's event time is stale and another edge may now be first.
-        const w = endpoint[p] as number;
+        const w = adjW[i] as number;
         if (visitMark[w] === again) continue;
         const bw = this.top(w);
         if (label[bw] !== 0 || bw === bx) continue;
@@ -729,16 +771,16 @@ class BlossomSolver {
   private recomputeFree(w: number): void {
     let best = -1;
     let bestSlack = Infinity;
-    const { endpoint, label, wt, dualVar, timeRef } = this;
+    const { adjP, adjW, adjWt, label, dualVar, timeRef } = this;
     const now = this.now;
     const bx = this.top(w);
     const dx = this.vDual(w);
-    for (let p = this.adjHead[w] as number; p !== -1; p = this.adjNext[p] as number) {
-      const k = p >> 1;
-      const u = endpoint[p] as number;
+    for (let i = this.adjStart[w] as number, e = i + (this.adjLen[w] as number); i < e; i++) {
+      const u = adjW[i] as number;
       const bu = this.top(u);
       if (bu === bx || label[bu] !== 1) continue;
-      const s = dx + (dualVar[u] as number) - (now - (timeRef[u] as number)) - 2 * (wt[k] as number);
+      const k = (adjP[i] as number) >> 1;
+      const s = dx + (dualVar[u] as number) - (now - (timeRef[u] as number)) - 2 * (adjWt[i] as number);
       if (s < bestSlack) {
         bestSlack = s;
         best = k;
@@ -752,16 +794,16 @@ class BlossomSolver {
   private recomputeOuter(v: number): void {
     let best = -1;
     let bestSlack = Infinity;
-    const { endpoint, label, wt, dualVar, timeRef } = this;
+    const { adjP, adjW, adjWt, label, dualVar, timeRef } = this;
     const now = this.now;
     const bx = this.top(v);
     const dx = this.vDual(v);
-    for (let p = this.adjHead[v] as number; p !== -1; p = this.adjNext[p] as number) {
-      const k = p >> 1;
-      const u = endpoint[p] as number;
+    for (let i = this.adjStart[v] as number, e = i + (this.adjLen[v] as number); i < e; i++) {
+      const u = adjW[i] as number;
       const bu = this.top(u);
       if (bu === bx || label[bu] !== 1) continue;
-      const s = dx + (dualVar[u] as number) - (now - (timeRef[u] as number)) - 2 * (wt[k] as number);
+      const k = (adjP[i] as number) >> 1;
+      const s = dx + (dualVar[u] as number) - (now - (timeRef[u] as number)) - 2 * (adjWt[i] as number);
       if (s < bestSlack) {
         bestSlack = s;
         best = k;
@@ -781,17 +823,18 @@ class BlossomSolver {
       // v is outer while it is scanned (a blossom formed meanwhile is outer too), so its dual
       // is fixed until the next dual step.
       const dv = this.vDual(v);
-      const { endpoint, allowEdge, wt, dualVar, timeRef } = this;
+      const { adjP, adjW, adjWt, allowEdge, dualVar, timeRef } = this;
       const now = this.now;
-      for (let p = this.adjHead[v] as number; p !== -1; p = this.adjNext[p] as number) {
-        const k = p >> 1;
-        const w = endpoint[p] as number;
+      for (let i = this.adjStart[v] as number, e = i + (this.adjLen[v] as number); i < e; i++) {
+        const w = adjW[i] as number;
         const bw = this.top(w);
         if (bv === bw) continue;
+        const p = adjP[i] as number;
+        const k = p >> 1;
         if (allowEdge[k] === 0) {
           const lw = label[bw];
           const dw = lw === 1 ? (dualVar[w] as number) - (now - (timeRef[w] as number)) : lw === 2 ? (dualVar[w] as number) + (now - (timeRef[w] as number)) : (dualVar[w] as number);
-          const sk = dv + dw - 2 * (wt[k] as number);
+          const sk = dv + dw - 2 * (adjWt[i] as number);
           if (sk > 0) {
             if (lw === 1) this.offerOuter(v, k);
             else if (lw === 0) this.offerFree(w, k);
