@@ -28,7 +28,7 @@ export function matchSets(parts: readonly MatchPart[], options: MatchOptions): M
       ? [parts.map((_, i) => i)]
       : (['NPN', 'PNP'] as Polarity[]).map((pol) => parts.flatMap((p, i) => (p.polarity === pol ? [i] : [])));
 
-  const sets: { members: number[]; set: MatchedSet }[] = [];
+  const sets: { members: number[]; first: number; set: MatchedSet }[] = [];
   let optimal = true;
   let upperBound = 0;
   let heuristicComponents = 0;
@@ -60,11 +60,11 @@ export function matchSets(parts: readonly MatchPart[], options: MatchOptions): M
       upperBound += q.upperBound;
       heuristicComponents += q.heuristicComponents;
     }
-    for (const members of found) sets.push({ members, set: describeSet(parts, members, options) });
+    for (const members of found) sets.push({ members, first: Math.min(...members), set: describeSet(parts, members, options) });
     if (setSize === 2) upperBound += found.length;
   }
 
-  sets.sort((x, y) => x.set.mismatch - y.set.mismatch || Math.min(...x.members) - Math.min(...y.members));
+  sets.sort((x, y) => x.set.mismatch - y.set.mismatch || x.first - y.first);
   const inSet = new Uint8Array(parts.length);
   for (const s of sets) for (const i of s.members) inSet[i] = 1;
   const unmatched = parts.flatMap((p, i) => (inSet[i] ? [] : [p.id]));
@@ -128,6 +128,10 @@ function validate(parts: readonly MatchPart[], options: MatchOptions): void {
   if (!Array.isArray(parts)) throw new MatchingInputError('parts', 'parts must be an array');
   const seen = new Set<string>();
   parts.forEach((p, i) => {
+    if (typeof p === 'object' && p !== null && isWellFormed(p) && !seen.has(String(p.id))) {
+      seen.add(String(p.id));
+      return;
+    }
     const at = `parts[${i}]`;
     if (typeof p !== 'object' || p === null) throw new MatchingInputError(at, `${at} must be an object`);
     const id: unknown = p.id;
@@ -148,4 +152,18 @@ function validate(parts: readonly MatchPart[], options: MatchOptions): void {
       throw new MatchingInputError(`${at}.vbeMv`, `${at}.vbeMv must be a finite number (mV)`);
     }
   });
+}
+
+/** The common case, checked without building messages; validate names the field otherwise. */
+function isWellFormed(p: MatchPart): boolean {
+  const id: unknown = p.id;
+  return (
+    ((typeof id === 'string' && id.length > 0) || (typeof id === 'number' && Number.isFinite(id))) &&
+    (p.polarity === 'NPN' || p.polarity === 'PNP') &&
+    typeof p.hfe === 'number' &&
+    Number.isFinite(p.hfe) &&
+    p.hfe > 0 &&
+    typeof p.vbeMv === 'number' &&
+    Number.isFinite(p.vbeMv)
+  );
 }
