@@ -5,7 +5,7 @@
  */
 import { pathToFileURL } from 'node:url';
 import { BIN_LABEL_STOCKS } from '../shared/api/bins.ts';
-import { formatLabel } from '../shared/domain/labels/index.ts';
+import { formatLabel, makeContainerCode } from '../shared/domain/labels/index.ts';
 import { binIntervalText, binLabelElements } from '../shared/domain/screening/index.ts';
 import { renderBinLabels, type BinLabelContent } from '../server/modules/bins/bin-label-pdf.ts';
 
@@ -20,7 +20,8 @@ export function sampleBinLabels(n: number): BinLabelContent[] {
   return Array.from({ length: n }, (_, i) => {
     const bi = i % bins.length;
     const b = bins[bi] as (typeof bins)[number];
-    const code = `C-20261201-${String(i + 1).padStart(4, '0')}`;
+    // Numbers from a busy day (99 751 on), so the job holds 5- and 6-digit codes, the widest.
+    const code = makeContainerCode(new Date(Date.UTC(2026, 11, 1, 12)), 99_751 + i);
     const quantity = 50 - (i % 7);
     return {
       containerCode: code,

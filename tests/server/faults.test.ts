@@ -212,12 +212,14 @@ describe('PostgreSQL stopped while the server runs (a separate throwaway cluster
 });
 
 describe('limits that are reached in a busy day', () => {
-  it('when the day\'s container numbers (C-YYYYMMDD-NNNN, 9 999 a day) run out, screening is refused with 409, not a 500', async () => {
-    // The counter row is stubbed: moving the shared test database's real counter would disturb other tests.
+  it('when the day\'s container numbers (C-YYYYMMDD-NNNN to -NNNNNN, 999 999 a day) run out, screening is refused with 409, not a 500', async () => {
+    // The counter row is stubbed: moving the shared test database's real counter would disturb
+    // other tests (tests/server/bins-container-codes.test.ts moves real rows of far-off days).
     const counterAt = (last: number) => ({ query: async () => [{ last }] }) as unknown as EntityManager;
     const day = new Date(Date.UTC(2026, 11, 1, 10));
-    expect(await nextContainerCodes(counterAt(9999), day, 2)).toEqual(['C-20261201-9998', 'C-20261201-9999']);
-    const err = await nextContainerCodes(counterAt(10_001), day, 2).catch((e: unknown) => e);
+    expect(await nextContainerCodes(counterAt(10_000), day, 2)).toEqual(['C-20261201-9999', 'C-20261201-10000']);
+    expect(await nextContainerCodes(counterAt(999_999), day, 1)).toEqual(['C-20261201-999999']);
+    const err = await nextContainerCodes(counterAt(1_000_001), day, 2).catch((e: unknown) => e);
     expect(err).toBeInstanceOf(AppError);
     expect(err).toMatchObject({ status: 409, errors: [{ field: 'containers', message: 'no container numbers left for today' }] });
   });

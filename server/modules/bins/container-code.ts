@@ -1,5 +1,5 @@
 import type { EntityManager } from 'typeorm';
-import { LabelFormatError, makeContainerCode } from '../../../shared/domain/labels/index.ts';
+import { LabelFormatError, makeContainerCode, MAX_OWN_CODE_SEQUENCE } from '../../../shared/domain/labels/index.ts';
 import { AppError } from '../../http/app-error.ts';
 
 /**
@@ -20,13 +20,26 @@ export async function nextContainerCodes(m: EntityManager, now: Date, count: num
   try {
     return Array.from({ length: count }, (_, i) => makeContainerCode(now, last - count + 1 + i));
   } catch (e) {
-    // The code format has four digits per day (C-YYYYMMDD-NNNN): past 9 999 containers in one
-    // day, refuse clearly (the caller's transaction rolls back) instead of failing with a 500.
+    // The sequence grows from four to six digits (C-YYYYMMDD-0001 … C-YYYYMMDD-999999): past
+    // 999 999 containers in one day, refuse clearly (the caller's transaction rolls back and
+    // gives the numbers back) instead of failing with a 500.
     if (e instanceof LabelFormatError && e.field === 'sequence') {
-      throw AppError.conflict(`Today's container numbers are used up (${last.toLocaleString('en')} containers needed, 9,999 per day); nothing was placed. Continue tomorrow or use larger containers.`, [
-        { field: 'containers', message: 'no container numbers left for today' },
-      ]);
+      throw AppError.conflict(
+        `Today's container numbers are used up (${last.toLocaleString('en')} containers needed, ${MAX_OWN_CODE_SEQUENCE.toLocaleString('en')} per day); nothing was placed. Continue tomorrow or use larger containers.`,
+        [{ field: 'containers', message: 'no container numbers left for today' }],
+      );
     }
     throw e;
   }
+}
+
+/**
+ * SQL expression that sorts container codes in issue order (`column` holds the code): the
+ * sequence padded to six digits, so C-20261201-9999 comes before C-20261201-10000. Same key as
+ * `ownCodeSortKey` in shared/domain/labels.
+ */
+export function containerCodeOrderSql(column: string): string {
+  const seq = `substr(${column}, 12)`;
+  // greatest(): lpad cuts longer text, and a code not of our form must keep all its characters.
+  return `(left(${column}, 11) || lpad(${seq}, greatest(6, length(${seq})), '0'))`;
 }

@@ -13,15 +13,16 @@ import {
   type ScrapContainerRequest,
 } from '../../../shared/api/bins.ts';
 import type { Page } from '../../../shared/api/page.ts';
-import { parseOwnCode } from '../../../shared/domain/labels/index.ts';
+import { CONTAINER_CODE_FORMAT, parseOwnCode } from '../../../shared/domain/labels/index.ts';
 import { adjustQuantity, statusAfter, type ContainerStatus } from '../../../shared/domain/screening/index.ts';
 import { AppError } from '../../http/app-error.ts';
 import { likePattern } from '../../http/route-params.ts';
 import { recordAudit } from '../audit/audit.service.ts';
+import { containerCodeOrderSql } from './container-code.ts';
 import { CONTAINER_SELECT, loadContainerRow, toContainerRow, type ContainerSqlRow } from './container-view.ts';
 
 const SORT_SQL: Record<ContainerSort, string> = {
-  code: 'c.code',
+  code: containerCodeOrderSql('c.code'),
   createdAt: 'c.created_at',
   quantity: 'c.quantity',
   location: 'c.location',
@@ -141,7 +142,7 @@ export async function containerDetail(m: EntityManager, id: number): Promise<Con
 export async function containerByCode(ds: DataSource, code: string): Promise<ContainerDetail> {
   const own = parseOwnCode(code);
   if (!own || own.kind !== 'container') {
-    throw AppError.unprocessable(`"${code.slice(0, 40)}" is not a container code (C-YYYYMMDD-NNNN).`, [{ field: 'code', message: 'not a container code' }]);
+    throw AppError.unprocessable(`"${code.slice(0, 40)}" is not a container code (${CONTAINER_CODE_FORMAT}).`, [{ field: 'code', message: 'not a container code' }]);
   }
   const rows = (await ds.query(`SELECT id FROM container WHERE code = $1`, [own.code])) as { id: number }[];
   if (!rows[0]) throw AppError.notFound(`Container ${own.code}`);

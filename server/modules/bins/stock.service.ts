@@ -1,6 +1,7 @@
 import type { DataSource } from 'typeorm';
 import { OUTSIDE_BINS_LABEL, type StockBin, type StockPartType, type StockResponse } from '../../../shared/api/bins.ts';
 import type { ContainerStatus } from '../../../shared/domain/screening/index.ts';
+import { containerCodeOrderSql } from './container-code.ts';
 
 interface Row {
   part_type_id: number;
@@ -42,7 +43,7 @@ export async function stockByBin(ds: DataSource, partTypeId?: number): Promise<S
        JOIN gain_bin_scheme s ON s.id = c.bin_scheme_id
        LEFT JOIN gain_bin b ON b.id = c.gain_bin_id
       WHERE ${where}
-      ORDER BY p.part_number, c.code`,
+      ORDER BY p.part_number, ${containerCodeOrderSql('c.code')}`,
     params,
   )) as Row[];
   const parts = new Map<number, StockPartType & { newest: Map<string, number> }>();

@@ -1,7 +1,7 @@
 import type { DataSource, EntityManager } from 'typeorm';
 import type { SessionUser } from '../../../shared/api/auth.ts';
 import type { CancelKitRequest, CreateKitRequest, KitDetail, KitStatus, PullKitPartRequest, PullKitPartResponse } from '../../../shared/api/pairing.ts';
-import { parseOwnCode } from '../../../shared/domain/labels/index.ts';
+import { CONTAINER_CODE_FORMAT, parseOwnCode } from '../../../shared/domain/labels/index.ts';
 import { KittingInputError, checkPull, pullProgress, reservationEnd, reservationExpired } from '../../../shared/domain/kitting/index.ts';
 import { adjustQuantity, statusAfter, type ContainerStatus } from '../../../shared/domain/screening/index.ts';
 import { AppError } from '../../http/app-error.ts';
@@ -187,7 +187,7 @@ export async function pullKitPart(ds: DataSource, actor: SessionUser, id: number
   await releaseExpiredKits(ds);
   const own = parseOwnCode(input.containerCode);
   if (!own || own.kind !== 'container') {
-    throw AppError.unprocessable(`"${input.containerCode.slice(0, 40)}" is not a container code (C-YYYYMMDD-NNNN). Scan the container's label.`, [
+    throw AppError.unprocessable(`"${input.containerCode.slice(0, 40)}" is not a container code (${CONTAINER_CODE_FORMAT}). Scan the container's label.`, [
       { field: 'containerCode', message: 'not a container code' },
     ]);
   }

@@ -37,7 +37,7 @@ const POSITION_SEPARATOR = ',';
 
 /**
  * The part references of a kit in one line of text for the free-text DI 11Z: per container,
- * "C-YYYYMMDD-NNNN:" and its positions ascending, containers in order of first appearance,
+ * "C-YYYYMMDD-NNNN:" (4–6 digits) and its positions ascending, containers in order of first appearance,
  * separated by ";" — e.g. "C-20261201-0012:3,4,7;C-20261201-0013:1". Grouping by container keeps
  * a kit of 40 parts from three containers near 110 codewords.
  * @throws KittingInputError for an empty container code, a code with ":" "," ";" or a position that is not a whole number ≥ 1.

@@ -46,13 +46,14 @@ export interface PickScan {
 }
 
 /**
- * Reads a scan or typed text at the pick list: a container code alone ("C-20261201-0012", any
- * case) or followed by a position after a space, "/", ".", ":" or "#", optionally written
+ * Reads a scan or typed text at the pick list: a container code alone ("C-20261201-0012" or
+ * "C-20261201-10000", any case) or followed by a position after a space, "/", ".", ":" or "#", optionally written
  * "P7" or "pos 7" — "C-20261201-0012/7", "c-20261201-0012 pos 7". Null when the text does not
  * start with one of our container codes.
  */
 export function readPickScan(text: string): PickScan | null {
-  const m = /^\s*(C-\d{8}-\d{4})(?:\s*[\s/.:#]\s*(?:P(?:OS(?:ITION)?)?\s*)?(\d{1,6}))?\s*$/i.exec(text);
+  // 4–6 digits after the date (own-codes.ts); parseOwnCode below refuses a wide form with a leading 0.
+  const m = /^\s*(C-\d{8}-\d{4,6})(?:\s*[\s/.:#]\s*(?:P(?:OS(?:ITION)?)?\s*)?(\d{1,6}))?\s*$/i.exec(text);
   if (!m) return null;
   const own = parseOwnCode(m[1] as string);
   if (!own || own.kind !== 'container') return null;

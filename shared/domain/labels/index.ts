@@ -14,10 +14,13 @@ export {
 } from './iso-15434.ts';
 export type { LabelElement, LabelFields, ParseLabelOptions, ParsedLabel, SeparatorSubstitutes } from './iso-15434.ts';
 export {
+  CONTAINER_CODE_FORMAT,
   DEFAULT_PURCHASE_ORDER_PATTERN,
+  MAX_OWN_CODE_SEQUENCE,
   classifyPlainCode,
   makeContainerCode,
   makeLotCode,
+  ownCodeSortKey,
   parseOwnCode,
 } from './own-codes.ts';
 export type { ClassifyOptions, OwnCode, OwnCodeKind, OwnCodeOptions, PlainCodeKind } from './own-codes.ts';

@@ -9,7 +9,7 @@ export interface OwnCode {
   code: string;
   /** Calendar day the code was issued, YYYY-MM-DD. */
   date: string;
-  /** Sequence number within that day, 1–9999. */
+  /** Sequence number within that day, 1–999 999. */
   sequence: number;
 }
 
@@ -28,18 +28,29 @@ export interface ClassifyOptions {
 
 const PREFIX: Readonly<Record<OwnCodeKind, string>> = { lot: 'L', container: 'C' };
 const KIND_OF_PREFIX: Readonly<Record<string, OwnCodeKind>> = { L: 'lot', C: 'container' };
-const OWN_CODE = /^([LC])-(\d{4})(\d{2})(\d{2})-(\d{4})$/;
-const MAX_SEQUENCE = 9999;
+// The sequence is written with at least four digits and grows to five or six past 9 999, so
+// every code issued before the widening stays valid. A wider form never starts with 0: each
+// sequence has exactly one spelling (C-20261201-0012, never C-20261201-00012).
+const OWN_CODE = /^([LC])-(\d{4})(\d{2})(\d{2})-(\d{4}|[1-9]\d{4,5})$/;
+
+/** Highest sequence number of a day: six digits (a 100 000-part screening into bags of 10 needs 10 000). */
+export const MAX_OWN_CODE_SEQUENCE = 999_999;
+/** Digits of the sequence up to 9 999; larger numbers take five or six. */
+const MIN_SEQUENCE_DIGITS = 4;
+/** How messages describe a container code to the person scanning one. */
+export const CONTAINER_CODE_FORMAT = 'C-YYYYMMDD-NNNN, 4–6 digits';
 
 /** Default purchase-order pattern: "PO" then an optional "-" or space and at least four digits. */
 export const DEFAULT_PURCHASE_ORDER_PATTERN = /^PO[-\s]?\d{4,}$/i;
 
 /**
- * Our lot code: "L-" + issue date YYYYMMDD + "-" + four-digit sequence, e.g. L-20261201-0007.
- * Fixed width, so codes sort lexicographically in issue order as long as the caller's sequence
- * rises within a day; only characters Code 128 and a keyboard handle easily. The caller passes
- * the clock (`date`) and the next free sequence number of that day.
- * @throws LabelFormatError (field `sequence` or `date`) for a sequence outside 1–9999, an
+ * Our lot code: "L-" + issue date YYYYMMDD + "-" + sequence of at least four digits, e.g.
+ * L-20261201-0007; from the 10 000th code of a day the sequence takes five or six digits
+ * (L-20261201-10000 … L-20261201-999999). Up to 9 999 a day the width is fixed, so codes sort
+ * as plain strings in issue order; past that, sort with `ownCodeSortKey`. Only characters
+ * Code 128 and a keyboard handle easily. The caller passes the clock (`date`) and the next free
+ * sequence number of that day.
+ * @throws LabelFormatError (field `sequence` or `date`) for a sequence outside 1–999 999, an
  * invalid date, or a year outside 1000–9999.
  */
 export function makeLotCode(date: Date, sequence: number, options: OwnCodeOptions = {}): string {
@@ -47,8 +58,8 @@ export function makeLotCode(date: Date, sequence: number, options: OwnCodeOption
 }
 
 /**
- * Our container (bin box) code: "C-" + YYYYMMDD + "-" + four-digit sequence, e.g.
- * C-20261201-0012; same rules as `makeLotCode`.
+ * Our container (bin box) code: "C-" + YYYYMMDD + "-" + sequence of four to six digits, e.g.
+ * C-20261201-0012 or C-20261201-10000; same rules as `makeLotCode`.
  * @throws LabelFormatError as `makeLotCode`.
  */
 export function makeContainerCode(date: Date, sequence: number, options: OwnCodeOptions = {}): string {
@@ -71,6 +82,17 @@ export function parseOwnCode(text: string): OwnCode | null {
   const seq = Number(sequence);
   if (seq < 1) return null;
   return { kind: KIND_OF_PREFIX[prefix], code, date: `${year}-${month}-${day}`, sequence: seq };
+}
+
+/**
+ * A key that sorts our codes in issue order as plain strings whatever the sequence width
+ * ("C-20261201-9999" before "C-20261201-10000"): the sequence padded to six digits. Text that
+ * is not one of our codes is returned trimmed and upper-cased, unchanged otherwise.
+ */
+export function ownCodeSortKey(code: string): string {
+  const own = parseOwnCode(code);
+  if (!own) return code.trim().toUpperCase();
+  return `${own.code.slice(0, 11)}${pad(own.sequence, 6)}`;
 }
 
 /**
@@ -99,8 +121,8 @@ function purchaseOrderRegExp(pattern: RegExp | string | undefined): RegExp {
 }
 
 function makeOwnCode(kind: OwnCodeKind, date: Date, sequence: number, options: OwnCodeOptions): string {
-  if (!Number.isInteger(sequence) || sequence < 1 || sequence > MAX_SEQUENCE) {
-    throw new LabelFormatError(`sequence must be a whole number from 1 to ${MAX_SEQUENCE}`, 'sequence');
+  if (!Number.isInteger(sequence) || sequence < 1 || sequence > MAX_OWN_CODE_SEQUENCE) {
+    throw new LabelFormatError(`sequence must be a whole number from 1 to ${MAX_OWN_CODE_SEQUENCE}`, 'sequence');
   }
   const offset = options.utcOffsetMinutes ?? 0;
   if (!Number.isFinite(offset)) throw new LabelFormatError('utcOffsetMinutes must be a finite number', 'utcOffsetMinutes');
@@ -111,7 +133,7 @@ function makeOwnCode(kind: OwnCodeKind, date: Date, sequence: number, options: O
   const year = local.getUTCFullYear();
   if (year < 1000 || year > 9999) throw new LabelFormatError('the year must have four digits', 'date');
   const ymd = `${year}${pad(local.getUTCMonth() + 1, 2)}${pad(local.getUTCDate(), 2)}`;
-  return `${PREFIX[kind]}-${ymd}-${pad(sequence, 4)}`;
+  return `${PREFIX[kind]}-${ymd}-${pad(sequence, MIN_SEQUENCE_DIGITS)}`;
 }
 
 function pad(value: number, width: number): string {

@@ -70,11 +70,14 @@ describe('pick list order, progress and scans', () => {
     ['C-20261201-0012#12', { containerCode: 'C-20261201-0012', position: 12 }],
     ['c-20261201-0012 pos 7', { containerCode: 'C-20261201-0012', position: 7 }],
     ['C-20261201-0012:P7', { containerCode: 'C-20261201-0012', position: 7 }],
+    ['C-20261201-10000', { containerCode: 'C-20261201-10000', position: null }],
+    ['c-20261201-123456/7', { containerCode: 'C-20261201-123456', position: 7 }],
+    ['C-20261201-999999 pos 12', { containerCode: 'C-20261201-999999', position: 12 }],
   ])('readPickScan(%s)', (text, expected) => {
     expect(readPickScan(text)).toEqual(expected);
   });
 
-  it.each([['L-20261201-0001'], ['C-20261301-0001'], ['C-20261201-0012/0'], ['hello'], ['C-20261201-0012/x']])('readPickScan(%s) is null', (t) => {
+  it.each([['L-20261201-0001'], ['C-20261301-0001'], ['C-20261201-0012/0'], ['hello'], ['C-20261201-0012/x'], ['C-20261201-00012'], ['C-20261201-001234'], ['C-20261201-1000000']])('readPickScan(%s) is null', (t) => {
     expect(readPickScan(t)).toBeNull();
   });
 

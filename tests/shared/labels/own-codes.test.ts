@@ -4,10 +4,12 @@ import {
   classifyPlainCode,
   makeContainerCode,
   makeLotCode,
+  MAX_OWN_CODE_SEQUENCE,
+  ownCodeSortKey,
   parseOwnCode,
 } from '../../../shared/domain/labels/index.ts';
 
-// Our own code format L-/C-YYYYMMDD-NNNN is a Binwright design (own-codes.ts JSDoc), not a standard.
+// Our own code format L-/C-YYYYMMDD-NNNN (4–6 digits) is a Binwright design (own-codes.ts JSDoc), not a standard.
 const utc = (y: number, m: number, d: number, h = 12) => new Date(Date.UTC(y, m - 1, d, h));
 
 describe('makeLotCode / makeContainerCode', () => {
@@ -15,6 +17,9 @@ describe('makeLotCode / makeContainerCode', () => {
     [utc(2026, 12, 1), 7, 'L-20261201-0007'],
     [utc(2027, 1, 9), 123, 'L-20270109-0123'],
     [utc(2026, 2, 28), 9999, 'L-20260228-9999'],
+    [utc(2026, 2, 28), 10_000, 'L-20260228-10000'],
+    [utc(2026, 2, 28), 123_456, 'L-20260228-123456'],
+    [utc(2026, 2, 28), 999_999, 'L-20260228-999999'],
   ])('on %s with sequence %i, the lot code is %s', (date, sequence, code) => {
     expect(makeLotCode(date, sequence)).toBe(code);
   });
@@ -23,13 +28,20 @@ describe('makeLotCode / makeContainerCode', () => {
     expect(makeContainerCode(utc(2026, 12, 1), 12)).toBe('C-20261201-0012');
   });
 
+  it('the 10 000th container of a day gets five digits, the 100 000th six', () => {
+    expect(makeContainerCode(utc(2026, 12, 1), 9_999)).toBe('C-20261201-9999');
+    expect(makeContainerCode(utc(2026, 12, 1), 10_000)).toBe('C-20261201-10000');
+    expect(makeContainerCode(utc(2026, 12, 1), 100_000)).toBe('C-20261201-100000');
+    expect(MAX_OWN_CODE_SEQUENCE).toBe(999_999);
+  });
+
   it('with a site offset of UTC+1 late in the UTC evening, uses the next local day', () => {
     const lateEvening = new Date(Date.UTC(2026, 11, 1, 23, 30));
     expect(makeLotCode(lateEvening, 1)).toBe('L-20261201-0001');
     expect(makeLotCode(lateEvening, 1, { utcOffsetMinutes: 60 })).toBe('L-20261202-0001');
   });
 
-  it('sorted as strings, codes come out in issue order across days, months, years and sequence widths', () => {
+  it('up to 9 999 a day, sorted as strings, codes come out in issue order across days, months, years and sequence widths', () => {
     const issued = [
       makeLotCode(utc(2026, 9, 30), 1),
       makeLotCode(utc(2026, 9, 30), 9),
@@ -45,16 +57,23 @@ describe('makeLotCode / makeContainerCode', () => {
 
   it.each([
     [0, 'sequence'],
-    [10000, 'sequence'],
+    [1_000_000, 'sequence'],
+    [-1, 'sequence'],
     [1.5, 'sequence'],
     [Number.NaN, 'sequence'],
   ])('with sequence %s, throws LabelFormatError for field %s', (sequence, field) => {
-    expect(() => makeLotCode(utc(2026, 12, 1), sequence)).toThrow(LabelFormatError);
+    let thrown: unknown = null;
     try {
       makeLotCode(utc(2026, 12, 1), sequence);
     } catch (error) {
-      expect((error as LabelFormatError).field).toBe(field);
+      thrown = error;
     }
+    expect(thrown).toBeInstanceOf(LabelFormatError);
+    expect((thrown as LabelFormatError).field).toBe(field);
+  });
+
+  it('past 999 999 the message names the limit', () => {
+    expect(() => makeContainerCode(utc(2026, 12, 1), 1_000_000)).toThrow('sequence must be a whole number from 1 to 999999');
   });
 
   it('with an invalid date, throws LabelFormatError for field date', () => {
@@ -76,6 +95,24 @@ describe('parseOwnCode', () => {
     });
   });
 
+  it.each([
+    ['C-20261201-0001', 1],
+    ['C-20261201-9999', 9_999],
+    ['C-20261201-10000', 10_000],
+    ['c-20261201-123456', 123_456],
+    ['C-20261201-999999', 999_999],
+    ['L-20261201-10000', 10_000],
+  ])('reads "%s" (4 to 6 digits) as sequence %i', (text, sequence) => {
+    expect(parseOwnCode(text)).toMatchObject({ code: text.toUpperCase(), date: '2026-12-01', sequence });
+  });
+
+  it('round-trips container codes of every width: 4-digit codes issued before the widening and 5–6-digit ones', () => {
+    for (const sequence of [1, 12, 999, 9_998, 9_999, 10_000, 10_001, 54_321, 99_999, 100_000, 500_000, 999_999]) {
+      const code = makeContainerCode(utc(2027, 3, 4), sequence);
+      expect(parseOwnCode(code)).toEqual({ kind: 'container', code, date: '2027-03-04', sequence });
+    }
+  });
+
   it('round-trips every code makeLotCode produces over a year', () => {
     for (let day = 0; day < 366; day += 7) {
       const date = new Date(Date.UTC(2028, 0, 1 + day, 8));
@@ -92,6 +129,10 @@ describe('parseOwnCode', () => {
     ['L-20261301-0001'],
     ['L-20261201-0000'],
     ['L-20261201-007'],
+    ['C-20261201-00012'], // a second spelling of 12: wide forms never start with 0
+    ['C-20261201-012345'],
+    ['C-20261201-1000000'], // seven digits
+    ['C-20261201-10000X'],
     ['X-20261201-0007'],
     ['L20261201-0007'],
     ['PO-104552'],
@@ -101,11 +142,26 @@ describe('parseOwnCode', () => {
   });
 });
 
+describe('ownCodeSortKey', () => {
+  it('sorts codes of mixed widths in issue order: …-9999 before …-10000, and by day first', () => {
+    const issued = ['C-20261201-0002', 'C-20261201-9999', 'C-20261201-10000', 'C-20261201-99999', 'C-20261201-100000', 'C-20261202-0001', 'C-20261202-10000'];
+    const shuffled = [issued[4], issued[1], issued[6], issued[0], issued[5], issued[3], issued[2]] as string[];
+    expect([...shuffled].sort((a, b) => ownCodeSortKey(a).localeCompare(ownCodeSortKey(b)))).toEqual(issued);
+    // Plain string order gets it wrong past 9 999, which is why the key exists.
+    expect([...shuffled].sort()).not.toEqual(issued);
+  });
+
+  it('leaves text that is not one of our codes as it is, upper-cased', () => {
+    expect(ownCodeSortKey(' bag-7 ')).toBe('BAG-7');
+  });
+});
+
 describe('classifyPlainCode', () => {
   // Default PO pattern ^PO[-\s]?\d{4,}$ (case-insensitive) is a Binwright default, configurable per site.
   it.each([
     ['L-20261201-0007', 'lot'],
     ['C-20261201-0012', 'container'],
+    ['C-20261201-10000', 'container'],
     ['PO-104552', 'purchaseOrder'],
     ['po 1045', 'purchaseOrder'],
     ['PO104552', 'purchaseOrder'],

@@ -1,13 +1,14 @@
 import { useEffect, useRef, useState, type KeyboardEvent } from 'react';
 import type { KitDetail, PullKitPartResponse } from '../../../../shared/api/pairing.ts';
 import { readPickScan } from '../../../../shared/domain/kitting/index.ts';
+import { CONTAINER_CODE_FORMAT } from '../../../../shared/domain/labels/index.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { Notice } from '../../../components/ui/notice.tsx';
 import { ApiError } from '../../../lib/api-client.ts';
 import { usePullKitPart } from '../api/pull-kit-part.ts';
 
 const input =
-  'w-full rounded-md border-2 bg-panel px-3 py-2 font-mono text-lg text-ink placeholder:text-ink-faint focus:outline-none focus:ring-2 focus:ring-copper/40 aria-[invalid=true]:border-fail';
+  'w-full rounded-md border-2 bg-panel px-3 py-2 font-mono text-lg text-ink placeholder:text-ink-faint focus:outline-none focus:ring-2 focus:ring-copper aria-[invalid=true]:border-fail';
 
 /**
  * Pull by scanning: the container code (a scanner types it and Enter), then the position (typed
@@ -61,7 +62,7 @@ export function PullScanField({ kit, onPulled }: { kit: KitDetail; onPulled?: (r
     if (!text.trim()) return;
     const scan = readPickScan(text);
     if (!scan) {
-      setMessage({ tone: 'fail', title: 'Not a container code', text: `"${text.trim().slice(0, 40)}" is not a container code (C-YYYYMMDD-NNNN). Scan the label on the container.` });
+      setMessage({ tone: 'fail', title: 'Not a container code', text: `"${text.trim().slice(0, 40)}" is not a container code (${CONTAINER_CODE_FORMAT}). Scan the label on the container.` });
       setBadField('containerCode');
       scanRef.current?.select();
       return;
