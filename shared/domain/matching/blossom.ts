@@ -157,6 +157,8 @@ class BlossomSolver {
    */
   private readonly bestFree: Int32Array;
   private readonly bestOuter: Int32Array;
+  /** When bestFree's event comes due (valid while the edge still qualifies). */
+  private readonly bestFreeAt: Float64Array;
   private readonly queue: number[] = [];
   /** Pending events, at most one per (vertex or blossom, kind): id = 8·x + kind. */
   private readonly events: IndexedMinHeap;
@@ -230,6 +232,7 @@ class BlossomSolver {
     this.allowEdge = new Uint8Array(cap);
     this.bestFree = new Int32Array(n).fill(-1);
     this.bestOuter = new Int32Array(n).fill(-1);
+    this.bestFreeAt = new Float64Array(n);
     this.treeOf = new Int32Array(2 * n).fill(-1);
     this.treeTops = new Array<number[] | null>(n).fill(null);
     this.visitMark = new Int32Array(2 * n);
@@ -749,18 +752,28 @@ class BlossomSolver {
     return bu !== this.top(v) && this.label[bu] === 1;
   }
 
-  private offerFree(w: number, k: number): void {
+  /**
+   * Edge k (slack s now) from an outer vertex to unlabelled w. The time an edge's event comes
+   * due does not move while it keeps qualifying (all such slacks fall at the same rate), so the
+   * recorded best is compared by that time.
+   */
+  private offerFree(w: number, k: number, s: number): void {
     const cur = this.bestFree[w] as number;
-    const s = this.slack(k);
-    if (cur === -1 || !this.isFreeEdge(w, cur) || s < this.slack(cur)) {
+    const at = this.now + s;
+    if (cur === -1 || at < (this.bestFreeAt[w] as number) || !this.isFreeEdge(w, cur)) {
       this.bestFree[w] = k;
-      this.events.set(this.now + s, 8 * w + KIND_FREE);
+      this.bestFreeAt[w] = at;
+      this.events.set(at, 8 * w + KIND_FREE);
     }
   }
 
-  private offerOuter(v: number, k: number): void {
+  /**
+   * Edge k (slack s now) from outer vertex v to another outer blossom. Unlike offerFree, the
+   * recorded best is compared by its current slack: its far end may have left the forest and come
+   * back since it was recorded (v is not looked at again when that end's tree is taken apart).
+   */
+  private offerOuter(v: number, k: number, s: number): void {
     const cur = this.bestOuter[v] as number;
-    const s = this.slack(k);
     if (cur === -1 || !this.isOuterEdge(v, cur) || s < this.slack(cur)) {
       this.bestOuter[v] = k;
       this.events.set(this.now + s / 2, 8 * v + KIND_OUTER);
@@ -787,7 +800,10 @@ class BlossomSolver {
       }
     }
     this.bestFree[w] = best;
-    if (best >= 0) this.events.set(this.now + bestSlack, 8 * w + KIND_FREE);
+    if (best >= 0) {
+      this.bestFreeAt[w] = this.now + bestSlack;
+      this.events.set(this.now + bestSlack, 8 * w + KIND_FREE);
+    }
   }
 
   /** Finds outer vertex v's least-slack edge to another outer blossom again. */
@@ -836,8 +852,8 @@ class BlossomSolver {
           const dw = lw === 1 ? (dualVar[w] as number) - (now - (timeRef[w] as number)) : lw === 2 ? (dualVar[w] as number) + (now - (timeRef[w] as number)) : (dualVar[w] as number);
           const sk = dv + dw - 2 * (adjWt[i] as number);
           if (sk > 0) {
-            if (lw === 1) this.offerOuter(v, k);
-            else if (lw === 0) this.offerFree(w, k);
+            if (lw === 1) this.offerOuter(v, k, sk);
+            else if (lw === 0) this.offerFree(w, k, sk);
             continue;
           }
           allowEdge[k] = 1;
@@ -970,8 +986,8 @@ class BlossomSolver {
       if (!during) continue;
       const bu = this.top(u);
       if (bu === this.top(v)) continue;
-      if (this.label[bu] === 1) this.offerOuter(v, k);
-      else if (this.label[bu] === 0) this.offerFree(u, k);
+      if (this.label[bu] === 1) this.offerOuter(v, k, this.slack(k));
+      else if (this.label[bu] === 0) this.offerFree(u, k, this.slack(k));
     }
   }
 

@@ -216,6 +216,26 @@ describe('matchSets — against the reference library edmonds-blossom-fixed on 2
     }
   });
 
+  it('on 40 seeded stocks of 150–400 parts from several lots at tight tolerances (3 % / 1 mV, 2 % / 0.5 mV): same number of pairs and total mismatch', () => {
+    const rng = mulberry32(20261202);
+    for (let k = 0; k < 40; k++) {
+      const lots = 2 + Math.floor(rng() * 4);
+      const parts: MatchPart[] = [];
+      for (let l = 0; l < lots; l++) {
+        const size = 50 + Math.floor(rng() * 70);
+        const h = normalSample(5000 + 10 * k + l, size, 150 + rng() * 100, 15 + rng() * 20);
+        const vb = normalSample(6000 + 10 * k + l, size, 648 + rng() * 12, 3 + rng() * 3);
+        h.forEach((x, i) => parts.push({ id: `S${k}-${l}-${i}`, polarity: 'NPN', hfe: Math.round(Math.max(20, x) * 10) / 10, vbeMv: Math.round(vb[i]! * 10) / 10 }));
+      }
+      const o: MatchOptions = k % 2 === 0 ? { hfeTolerancePct: 3, vbeToleranceMv: 1, setSize: 2, mode: 'same' } : { hfeTolerancePct: 2, vbeToleranceMv: 0.5, setSize: 2, mode: 'same' };
+      const r = matchSets(parts, o);
+      expectValid(parts, o, r);
+      const ref = libraryPairs(parts, o);
+      expect(r.sets, `stock ${k}`).toHaveLength(ref.sets);
+      expect(Math.abs(total(r) - ref.total), `stock ${k}`).toBeLessThan(1e-6);
+    }
+  });
+
   it('stock of 1 500 parts from five lots at 3 % / 1 mV (dense graph: odd cycles, blossoms and fetched edges): same number of pairs and total mismatch', () => {
     // Five invented lots with their own hFE and Vbe centres, as screened stock looks; the tight
     // tolerances leave the LP relaxation with odd cycles, so the blossom phase and its lazily
