@@ -208,10 +208,21 @@ class BlossomSolver {
     this.adjW = new Int32Array(room);
     this.adjWt = new Float64Array(room);
     for (let k = 0; k < m; k++) {
+      const i = ei[k] as number;
+      const j = ej[k] as number;
+      const w = graph.weight[k] as number;
+      let at = (this.adjStart[i] as number) + (this.adjLen[i]++ as number);
+      this.adjP[at] = 2 * k + 1;
+      this.adjW[at] = j;
+      this.adjWt[at] = w;
+      at = (this.adjStart[j] as number) + (this.adjLen[j]++ as number);
+      this.adjP[at] = 2 * k;
+      this.adjW[at] = i;
+      this.adjWt[at] = w;
+    }
+    for (let k = 0; k < m; k++) {
       this.endpoint[2 * k] = ei[k] as number;
       this.endpoint[2 * k + 1] = ej[k] as number;
-      this.link(ei[k] as number, 2 * k + 1);
-      this.link(ej[k] as number, 2 * k);
     }
     this.level = lazy ? lazy.level.slice() : null;
 
@@ -324,34 +335,42 @@ class BlossomSolver {
   /** Appends endpoint p (an edge of v) to v's row. */
   private link(v: number, p: number): void {
     let len = this.adjLen[v] as number;
-    if (len === this.adjRoom[v]) {
-      const room = 2 * len + 4;
-      if (this.adjUsed + room > this.adjP.length) {
-        const size = 2 * (this.adjUsed + room);
-        const adjP = new Int32Array(size);
-        adjP.set(this.adjP);
-        this.adjP = adjP;
-        const adjW = new Int32Array(size);
-        adjW.set(this.adjW);
-        this.adjW = adjW;
-        const adjWt = new Float64Array(size);
-        adjWt.set(this.adjWt);
-        this.adjWt = adjWt;
-      }
-      const from = this.adjStart[v] as number;
-      this.adjP.copyWithin(this.adjUsed, from, from + len);
-      this.adjW.copyWithin(this.adjUsed, from, from + len);
-      this.adjWt.copyWithin(this.adjUsed, from, from + len);
-      this.adjStart[v] = this.adjUsed;
-      this.adjRoom[v] = room;
-      this.adjUsed += room;
-    }
+    if (len === this.adjRoom[v]) this.moveRow(v, 2 * len + 4);
     const at = (this.adjStart[v] as number) + len++;
     this.adjP[at] = p;
     this.adjW[at] = this.endpoint[p] as number;
     this.adjWt[at] = this.wt[p >> 1] as number;
     this.adjLen[v] = len;
   }
+
+  /** Moves v's row to the end of the arrays with room for `room` edges. */
+  private moveRow(v: number, room: number): void {
+    const len = this.adjLen[v] as number;
+    if (this.adjUsed + room > this.adjP.length) {
+      const size = 2 * (this.adjUsed + room);
+      const adjP = new Int32Array(size);
+      adjP.set(this.adjP);
+      this.adjP = adjP;
+      const adjW = new Int32Array(size);
+      adjW.set(this.adjW);
+      this.adjW = adjW;
+      const adjWt = new Float64Array(size);
+      adjWt.set(this.adjWt);
+      this.adjWt = adjWt;
+    }
+    const from = this.adjStart[v] as number;
+    const to = this.adjUsed;
+    const { adjP, adjW, adjWt } = this;
+    for (let x = 0; x < len; x++) {
+      adjP[to + x] = adjP[from + x] as number;
+      adjW[to + x] = adjW[from + x] as number;
+      adjWt[to + x] = adjWt[from + x] as number;
+    }
+    this.adjStart[v] = to;
+    this.adjRoom[v] = room;
+    this.adjUsed += room;
+  }
+
 
   private addEdge(i: number, j: number, w: number): number {
     const k = this.m++;
@@ -978,6 +997,8 @@ class BlossomSolver {
   private fetchEdges(v: number, during = true): void {
     const { to, weight, level } = (this.lazy as LazyEdges).fetch(v);
     (this.level as Float64Array)[v] = level;
+    const need = (this.adjLen[v] as number) + to.length;
+    if (need > (this.adjRoom[v] as number)) this.moveRow(v, need + 4);
     if (during && level > -Infinity) this.events.set(this.now + this.vDual(v) - level, 8 * v + KIND_LEVEL);
     for (let i = 0; i < to.length; i++) {
       const u = to[i] as number;
