@@ -26,15 +26,43 @@ export interface AssignmentSolution {
 /**
  * A minimum-cost perfect assignment and an optimal dual (LP duality certifies it). The caller
  * guarantees a perfect assignment exists. Integer costs give integer duals, exactly.
+ * `start`: the solution of an earlier problem with the same rows and columns and a subset of these
+ * arcs at the same costs (the sparse graph grew). Each row's dual is lowered until its new arcs
+ * are feasible; a row whose dual had to move loses its column, and only those rows are searched
+ * again.
  */
-export function solveAssignment(p: SparseAssignment): AssignmentSolution {
+export function solveAssignment(p: SparseAssignment, start?: AssignmentSolution): AssignmentSolution {
   const { n, rowStart, arcCol, arcCost } = p;
   const u = new Float64Array(n);
   const v = new Float64Array(n);
   const colOf = new Int32Array(n).fill(-1);
   const rowOf = new Int32Array(n).fill(-1);
 
-  // Start: u = row minimum, v = 0; assign a row to a free column on a tight arc.
+  if (start) {
+    v.set(start.v);
+    for (let r = 0; r < n; r++) {
+      let ur = start.u[r] as number;
+      for (let a = rowStart[r] as number; a < (rowStart[r + 1] as number); a++) {
+        const reduced = (arcCost[a] as number) - (v[arcCol[a] as number] as number);
+        if (reduced < ur) ur = reduced;
+      }
+      u[r] = ur;
+      const c = start.colOf[r] as number;
+      if (ur === start.u[r] && c >= 0) {
+        colOf[r] = c;
+        rowOf[c] = r;
+      }
+    }
+  } else {
+    initialDuals(p, u, colOf, rowOf);
+  }
+  augmentFreeRows(p, u, v, colOf, rowOf);
+  return { colOf, u, v };
+}
+
+/** u = row minimum, v = 0; a row takes a free column on a tight arc. */
+function initialDuals(p: SparseAssignment, u: Float64Array, colOf: Int32Array, rowOf: Int32Array): void {
+  const { n, rowStart, arcCol, arcCost } = p;
   for (let r = 0; r < n; r++) {
     let best = Infinity;
     let bestCol = -1;
@@ -51,6 +79,11 @@ export function solveAssignment(p: SparseAssignment): AssignmentSolution {
       colOf[r] = bestCol;
     }
   }
+}
+
+/** Shortest augmenting paths (Dijkstra over reduced costs) from every free row. */
+function augmentFreeRows(p: SparseAssignment, u: Float64Array, v: Float64Array, colOf: Int32Array, rowOf: Int32Array): void {
+  const { n, rowStart, arcCol, arcCost } = p;
 
   const dist = new Float64Array(n).fill(Infinity);
   const prevRow = new Int32Array(n).fill(-1);
@@ -127,5 +160,4 @@ export function solveAssignment(p: SparseAssignment): AssignmentSolution {
       prevRow[tc] = -1;
     }
   }
-  return { colOf, u, v };
 }

@@ -1,4 +1,4 @@
-import { solveAssignment } from './assignment.ts';
+import { type AssignmentSolution, solveAssignment } from './assignment.ts';
 import { type LazyEdges, solveMaxWeightMatching } from './blossom.ts';
 import { type PairItems, collectNeighbours, firstAfter, itemsCompatible, itemsMismatch, vbeBuckets } from './items.ts';
 import { hfeWithinTolerance } from './tolerance.ts';
@@ -197,9 +197,11 @@ export function solveMaxPairs(it: PairItems): PairSolution {
   let bound = boundOf(NARROW);
   let rounds = 0;
   let lp: Relaxation;
+  let previous: AssignmentSolution | undefined;
   for (;;) {
     rounds++;
-    lp = solveRelaxation(n, held.edgeA(), held.edgeB(), held.costs(), P);
+    lp = solveRelaxation(n, held.edgeA(), held.edgeB(), held.costs(), P, previous);
+    previous = lp.assignment;
     const before = held.m;
     for (let a = 0; a < n; a++) {
       const pa = lp.pi[a] as number;
@@ -322,6 +324,8 @@ interface Relaxation {
   /** Min-cost duals: pi[a] + pi[b] ≤ q on every edge, pi[a] ≤ P, equality on the support. */
   readonly pi: Float64Array;
   readonly oddCycles: number;
+  /** The assignment behind it, to start the next round from. */
+  readonly assignment: AssignmentSolution;
 }
 
 /**
@@ -333,7 +337,7 @@ interface Relaxation {
  * is tight (complementary slackness), so alternate edges of each cycle can be taken as pairs;
  * an odd cycle leaves one item over.
  */
-function solveRelaxation(n: number, edgeA: Int32Array, edgeB: Int32Array, cost: Float64Array, P: number): Relaxation {
+function solveRelaxation(n: number, edgeA: Int32Array, edgeB: Int32Array, cost: Float64Array, P: number, start?: AssignmentSolution): Relaxation {
   const m = edgeA.length;
   const self = 2 * P;
   const rowStart = new Int32Array(n + 1);
@@ -357,7 +361,8 @@ function solveRelaxation(n: number, edgeA: Int32Array, edgeB: Int32Array, cost: 
     arcCol[fill[b] as number] = a;
     arcCost[fill[b]++ as number] = cost[e] as number;
   }
-  const { colOf, u, v } = solveAssignment({ n, rowStart, arcCol, arcCost });
+  const assignment = solveAssignment({ n, rowStart, arcCol, arcCost }, start);
+  const { colOf, u, v } = assignment;
   const pi = new Float64Array(n);
   for (let a = 0; a < n; a++) pi[a] = ((u[a] as number) + (v[a] as number)) / 2;
 
@@ -378,7 +383,7 @@ function solveRelaxation(n: number, edgeA: Int32Array, edgeB: Int32Array, cost: 
     }
     if (cycle.length % 2 === 1 && cycle.length > 1) oddCycles++;
   }
-  return { mate, pi, oddCycles };
+  return { mate, pi, oddCycles, assignment };
 }
 
 /**
