@@ -1,3 +1,4 @@
+import { scratchFloat64, scratchInt32, scratchUint8 } from './buffers.ts';
 import { IndexedMinHeap } from './min-heap.ts';
 
 /**
@@ -184,13 +185,15 @@ class BlossomSolver {
     this.n = n;
     this.m = m;
     const cap = Math.max(m, Math.min(lazy?.capacity ?? 0, 1 << 24));
-    this.ei = new Int32Array(cap);
+    // The per-edge arrays are scratch buffers kept between runs (see buffers.ts); every slot is
+    // written before it is read.
+    this.ei = scratchInt32('blossom.ei', cap);
     this.ei.set(ei);
-    this.ej = new Int32Array(cap);
+    this.ej = scratchInt32('blossom.ej', cap);
     this.ej.set(ej);
-    this.wt = new Float64Array(cap);
+    this.wt = scratchFloat64('blossom.wt', cap);
     this.wt.set(graph.weight);
-    this.endpoint = new Int32Array(2 * cap);
+    this.endpoint = scratchInt32('blossom.endpoint', 2 * cap);
     this.adjStart = new Int32Array(n);
     this.adjLen = new Int32Array(n);
     this.adjRoom = new Int32Array(n);
@@ -204,9 +207,9 @@ class BlossomSolver {
       this.adjUsed += this.adjRoom[v] as number;
     }
     const room = this.adjUsed + 2 * (cap - m);
-    this.adjP = new Int32Array(room);
-    this.adjW = new Int32Array(room);
-    this.adjWt = new Float64Array(room);
+    this.adjP = scratchInt32('blossom.adjP', room);
+    this.adjW = scratchInt32('blossom.adjW', room);
+    this.adjWt = scratchFloat64('blossom.adjWt', room);
     for (let k = 0; k < m; k++) {
       const i = ei[k] as number;
       const j = ej[k] as number;
@@ -240,14 +243,14 @@ class BlossomSolver {
     this.dualVar = new Float64Array(2 * n);
     this.labelTime = new Float64Array(2 * n);
     this.timeRef = new Float64Array(n);
-    this.allowEdge = new Uint8Array(cap);
+    this.allowEdge = scratchUint8('blossom.allowEdge', cap).fill(0);
     this.bestFree = new Int32Array(n).fill(-1);
     this.bestOuter = new Int32Array(n).fill(-1);
     this.bestFreeAt = new Float64Array(n);
     this.treeOf = new Int32Array(2 * n).fill(-1);
     this.treeTops = new Array<number[] | null>(n).fill(null);
     this.visitMark = new Int32Array(2 * n);
-    this.events = new IndexedMinHeap(16 * n);
+    this.events = new IndexedMinHeap(16 * n, 'blossom.events');
 
     if (start) {
       for (let v = 0; v < n; v++) {

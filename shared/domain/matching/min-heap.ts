@@ -1,3 +1,5 @@
+import { scratchFloat64, scratchInt32 } from './buffers.ts';
+
 /** Binary min-heap of (key, id) pairs in typed arrays; stale entries are the caller's to skip (lazy deletion). */
 export class MinHeap {
   private keys = new Float64Array(64);
@@ -83,10 +85,18 @@ export class IndexedMinHeap {
   private readonly pos: Int32Array;
   private count = 0;
 
-  constructor(capacity: number) {
-    this.keys = new Float64Array(capacity);
-    this.ids = new Int32Array(capacity);
-    this.pos = new Int32Array(capacity).fill(-1);
+  /** With a scratch key, the arrays are buffers kept between runs (buffers.ts). */
+  constructor(capacity: number, scratchKey?: string) {
+    if (scratchKey === undefined) {
+      this.keys = new Float64Array(capacity);
+      this.ids = new Int32Array(capacity);
+      this.pos = new Int32Array(capacity);
+    } else {
+      this.keys = scratchFloat64(`${scratchKey}.keys`, capacity);
+      this.ids = scratchInt32(`${scratchKey}.ids`, capacity);
+      this.pos = scratchInt32(`${scratchKey}.pos`, capacity);
+    }
+    this.pos.fill(-1);
   }
 
   get size(): number {

@@ -1,4 +1,5 @@
 import { type AssignmentSolution, solveAssignment } from './assignment.ts';
+import { scratchFloat64, scratchInt32 } from './buffers.ts';
 import { type LazyEdges, solveMaxWeightMatching } from './blossom.ts';
 import { type PairItems, collectNeighbours, firstAfter, itemsCompatible, itemsMismatch, vbeBuckets } from './items.ts';
 import { hfeWithinTolerance } from './tolerance.ts';
@@ -54,8 +55,9 @@ export function solveMaxPairs(it: PairItems): PairSolution {
 
   // 2. The WIDE cheapest compatible edges of every item (a bounded max-heap per item), then
   //    sorted by cost.
-  const topQ = new Float64Array(n * WIDE);
-  const topJ = new Int32Array(n * WIDE);
+  // Scratch buffers kept between runs (buffers.ts): slot s of item a is read only below count[a].
+  const topQ = scratchFloat64('pairs.topQ', n * WIDE);
+  const topJ = scratchInt32('pairs.topJ', n * WIDE);
   const count = new Int32Array(n);
   const offer = (a: number, b: number, q: number): void => {
     const base = a * WIDE;
@@ -156,7 +158,7 @@ export function solveMaxPairs(it: PairItems): PairSolution {
 
   // The graph the solvers hold: its edge list (with costs), and per item the list of its
   // neighbours for membership tests.
-  const held = new HeldGraph(n, n * (NARROW + 4));
+  const held = new HeldGraph(n, n * (WIDE + 4));
   const mark = new Int32Array(n).fill(-1);
   let stamp = 0;
   const hold = (a: number, b: number): void => held.add(a, b, costOf(a, b));
@@ -266,10 +268,11 @@ class HeldGraph {
   constructor(n: number, capacity: number) {
     const cap = Math.max(16, capacity);
     this.head = new Int32Array(n).fill(-1);
-    this.next = new Int32Array(2 * cap);
-    this.ea = new Int32Array(cap);
-    this.eb = new Int32Array(cap);
-    this.q = new Float64Array(cap);
+    // Scratch buffers kept between runs (buffers.ts); slots are written before they are read.
+    this.next = scratchInt32('held.next', 2 * cap);
+    this.ea = scratchInt32('held.ea', cap);
+    this.eb = scratchInt32('held.eb', cap);
+    this.q = scratchFloat64('held.q', cap);
   }
 
   add(a: number, b: number, cost: number): void {
@@ -346,8 +349,8 @@ function solveRelaxation(n: number, edgeA: Int32Array, edgeB: Int32Array, cost: 
     rowStart[(edgeB[e] as number) + 1]++;
   }
   for (let a = 0; a < n; a++) rowStart[a + 1] = (rowStart[a + 1] as number) + (rowStart[a] as number) + 1;
-  const arcCol = new Int32Array(2 * m + n);
-  const arcCost = new Float64Array(2 * m + n);
+  const arcCol = scratchInt32('relaxation.arcCol', 2 * m + n);
+  const arcCost = scratchFloat64('relaxation.arcCost', 2 * m + n);
   const fill = rowStart.slice(0, n);
   for (let a = 0; a < n; a++) {
     arcCol[fill[a] as number] = a;
