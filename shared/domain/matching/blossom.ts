@@ -133,6 +133,8 @@ class BlossomSolver {
   private adjW: Int32Array;
   private adjWt: Float64Array;
   private adjUsed = 0;
+  /** Times the rows outgrew their arrays in this run (each growth takes its own scratch key). */
+  private adjGrowths = 0;
   private readonly level: Float64Array | null;
   private readonly mate: Int32Array;
   /** Of top-level blossoms: 0 outside the forest, 1 outer (S), 2 inner (T); meaningless below the top. */
@@ -206,7 +208,9 @@ class BlossomSolver {
       this.adjStart[v] = this.adjUsed;
       this.adjUsed += this.adjRoom[v] as number;
     }
-    const room = this.adjUsed + 2 * (cap - m);
+    // Room for the edges still to come and for rows that move when they fill up (a moved row
+    // leaves its old slots behind).
+    const room = 2 * this.adjUsed + 2 * (cap - m);
     this.adjP = scratchInt32('blossom.adjP', room);
     this.adjW = scratchInt32('blossom.adjW', room);
     this.adjWt = scratchFloat64('blossom.adjWt', room);
@@ -351,13 +355,14 @@ class BlossomSolver {
     const len = this.adjLen[v] as number;
     if (this.adjUsed + room > this.adjP.length) {
       const size = 2 * (this.adjUsed + room);
-      const adjP = new Int32Array(size);
+      const g = ++this.adjGrowths;
+      const adjP = scratchInt32(`blossom.adjP.${g}`, size);
       adjP.set(this.adjP);
       this.adjP = adjP;
-      const adjW = new Int32Array(size);
+      const adjW = scratchInt32(`blossom.adjW.${g}`, size);
       adjW.set(this.adjW);
       this.adjW = adjW;
-      const adjWt = new Float64Array(size);
+      const adjWt = scratchFloat64(`blossom.adjWt.${g}`, size);
       adjWt.set(this.adjWt);
       this.adjWt = adjWt;
     }
