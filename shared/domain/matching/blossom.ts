@@ -141,6 +141,9 @@ class BlossomSolver {
   private readonly label: Int8Array;
   private readonly labelEnd: Int32Array;
   private readonly inBlossom: Int32Array;
+  /** Generation of the blossom cached in inBlossom[v], and of each blossom id (bumped on expansion). */
+  private readonly inBlossomGen: Int32Array;
+  private readonly blossomGen: Int32Array;
   private readonly blossomParent: Int32Array;
   private readonly blossomChilds: (number[] | null)[];
   private readonly blossomBase: Int32Array;
@@ -238,6 +241,8 @@ class BlossomSolver {
     this.labelEnd = new Int32Array(2 * n).fill(-1);
     this.inBlossom = new Int32Array(n);
     for (let v = 0; v < n; v++) this.inBlossom[v] = v;
+    this.inBlossomGen = new Int32Array(n);
+    this.blossomGen = new Int32Array(2 * n);
     this.blossomParent = new Int32Array(2 * n).fill(-1);
     this.blossomChilds = new Array<number[] | null>(2 * n).fill(null);
     this.blossomBase = new Int32Array(2 * n).fill(-1);
@@ -271,13 +276,19 @@ class BlossomSolver {
 
   /**
    * Top-level blossom containing vertex v. inBlossom[v] may point to any blossom that still
+   * contains v, or to one expanded since (recognised by its generation, blossomGen), so an
+   * expansion does not have to visit the leaves of its children;
    * contains v (forming a blossom does not touch its leaves); the climb is cached.
    */
   private top(v: number): number {
     let b = this.inBlossom[v] as number;
-    if (this.blossomParent[b] === -1) return b;
+    // A cached blossom that has been expanded since (its generation moved on) says nothing:
+    // climb from the vertex itself.
+    if (this.blossomGen[b] !== this.inBlossomGen[v]) b = v;
+    else if (this.blossomParent[b] === -1) return b;
     while (this.blossomParent[b] !== -1) b = this.blossomParent[b] as number;
     this.inBlossom[v] = b;
+    this.inBlossomGen[v] = this.blossomGen[b] as number;
     return b;
   }
 
@@ -306,9 +317,15 @@ class BlossomSolver {
       this.timeRef[b] = this.now;
       return;
     }
+    // Every leaf of top-level b moves at the rate b's label gives.
+    const { dualVar, timeRef } = this;
+    const l = this.label[b];
+    const now = this.now;
     for (const v of this.leaves(b, [])) {
-      this.dualVar[v] = this.vDual(v);
-      this.timeRef[v] = this.now;
+      const moved = now - (timeRef[v] as number);
+      if (l === 1) dualVar[v] = (dualVar[v] as number) - moved;
+      else if (l === 2) dualVar[v] = (dualVar[v] as number) + moved;
+      timeRef[v] = now;
     }
     if (b >= this.n) {
       this.dualVar[b] = this.zDual(b);
@@ -552,16 +569,17 @@ class BlossomSolver {
     const n = this.n;
     if (!endStage) this.settle(b);
     const childs = this.blossomChilds[b] as number[];
+    // From here on, leaves cached as inside b find their new top-level blossom by climbing.
+    this.blossomGen[b]++;
     for (const s of childs) {
       this.blossomParent[s] = -1;
       label[s] = 0;
       this.labelTime[s] = this.now;
       if (s < n) {
         inBlossom[s] = s;
+        this.inBlossomGen[s] = 0;
       } else if (endStage && this.dualVar[s] === 0) {
         this.expandBlossom(s, endStage);
-      } else {
-        for (const x of this.leaves(s, [])) inBlossom[x] = s;
       }
     }
     if (!endStage && label[b] === 2) {
