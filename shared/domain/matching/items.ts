@@ -29,6 +29,21 @@ export function itemsCompatible(it: PairItems, a: number, b: number): boolean {
   return vbeWithinTolerance(vlo, vhi, it.vbeToleranceMv);
 }
 
+/**
+ * round(itemsMismatch · scale) of items a and b, or −1 when they are not compatible: the two
+ * calls in one, for the scans that test many candidates (the same arithmetic, so the same costs).
+ */
+export function itemsCost(it: PairItems, a: number, b: number, scale: number): number {
+  if (it.group !== null && it.group[a] === it.group[b]) return -1;
+  const vlo = Math.min(it.vLo[a] as number, it.vLo[b] as number);
+  const vhi = Math.max(it.vHi[a] as number, it.vHi[b] as number);
+  if (!vbeWithinTolerance(vlo, vhi, it.vbeToleranceMv)) return -1;
+  const lo = Math.min(it.hLo[a] as number, it.hLo[b] as number);
+  const hi = Math.max(it.hHi[a] as number, it.hHi[b] as number);
+  if (!hfeWithinTolerance(lo, hi, it.hfeTolerancePct)) return -1;
+  return Math.round(setMismatch(hfeSpreadPct(lo, hi), vhi - vlo, it.hfeTolerancePct, it.vbeToleranceMv) * scale);
+}
+
 /** Dimensionless mismatch (setMismatch) of the union of items a and b. */
 export function itemsMismatch(it: PairItems, a: number, b: number): number {
   const lo = Math.min(it.hLo[a] as number, it.hLo[b] as number);

@@ -1,7 +1,7 @@
 import { type AssignmentSolution, solveAssignment } from './assignment.ts';
 import { scratchFloat64, scratchInt32 } from './buffers.ts';
 import { type LazyEdges, solveMaxWeightMatching } from './blossom.ts';
-import { type PairItems, collectNeighbours, firstAfter, itemsCompatible, itemsMismatch, vbeBuckets } from './items.ts';
+import { type PairItems, collectNeighbours, firstAfter, itemsCost, itemsMismatch, vbeBuckets } from './items.ts';
 import { hfeWithinTolerance } from './tolerance.ts';
 
 /** Cheapest compatible edges per item in the graph of the LP relaxation (step 3). */
@@ -52,6 +52,7 @@ export function solveMaxPairs(it: PairItems): PairSolution {
   const S = mismatchScale(n);
   const P = n * S + 1;
   const costOf = (a: number, b: number): number => Math.round(itemsMismatch(it, a, b) * S);
+  // (itemsCost below is the same arithmetic with the compatibility test folded in.)
 
   // 2. The WIDE cheapest compatible edges of every item (a bounded max-heap per item), then
   //    sorted by cost.
@@ -113,7 +114,8 @@ export function solveMaxPairs(it: PairItems): PairSolution {
         const hb = hLo[b] as number;
         if (!hfeWithinTolerance(ha, hb, t)) break;
         if (count[a] === WIDE && ((hb - ha) / ha) * hScale > (topQ[base] as number) + 1) break;
-        if (itemsCompatible(it, a, b)) offer(a, b, costOf(a, b));
+        const q = itemsCost(it, a, b, S);
+        if (q >= 0) offer(a, b, q);
       }
       const first = bk.start[i] as number;
       for (let s = (i === own ? after - 1 : after) - 1; s >= first; s--) {
@@ -121,7 +123,8 @@ export function solveMaxPairs(it: PairItems): PairSolution {
         const hb = hLo[b] as number;
         if (!hfeWithinTolerance(hb, hha, t)) break;
         if (count[a] === WIDE && ((hha - hb) / hb) * hScale > (topQ[base] as number) + 1) break;
-        if (itemsCompatible(it, a, b)) offer(a, b, costOf(a, b));
+        const q = itemsCost(it, a, b, S);
+        if (q >= 0) offer(a, b, q);
       }
     }
   }
