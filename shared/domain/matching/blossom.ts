@@ -176,6 +176,8 @@ class BlossomSolver {
   private liveTrees = 0;
   private readonly visitMark: Int32Array;
   private visit = 0;
+  private readonly leafStack: number[] = [];
+  private readonly leafScratch: number[] = [];
 
   constructor(
     graph: BlossomGraph,
@@ -321,7 +323,7 @@ class BlossomSolver {
     const { dualVar, timeRef } = this;
     const l = this.label[b];
     const now = this.now;
-    for (const v of this.leaves(b, [])) {
+    for (const v of this.scratchLeaves(b)) {
       const moved = now - (timeRef[v] as number);
       if (l === 1) dualVar[v] = (dualVar[v] as number) - moved;
       else if (l === 2) dualVar[v] = (dualVar[v] as number) + moved;
@@ -415,12 +417,23 @@ class BlossomSolver {
   }
 
   /** Appends the leaves (vertices) of blossom b to out, depth first in child order. */
+  /**
+   * A reused array for leaves that are read at once (before anything else asks for leaves into it).
+   */
+  private scratchLeaves(b: number): number[] {
+    const out = this.leafScratch;
+    out.length = 0;
+    return this.leaves(b, out);
+  }
+
   private leaves(b: number, out: number[]): number[] {
     if (b < this.n) {
       out.push(b);
       return out;
     }
-    const stack = [b];
+    const stack = this.leafStack;
+    stack.length = 0;
+    stack.push(b);
     while (stack.length > 0) {
       const x = stack.pop() as number;
       if (x < this.n) {
@@ -467,7 +480,8 @@ class BlossomSolver {
       this.timeRef[b] = this.now;
       if (t === 1) this.becameOuter(b);
     } else {
-      const lv = this.leaves(b, []);
+      // becameOuter asks for no leaves, so the reused array stays intact through both loops.
+      const lv = this.scratchLeaves(b);
       for (const v of lv) this.timeRef[v] = this.now;
       if (t === 1) for (const v of lv) this.becameOuter(v);
     }

@@ -77,7 +77,26 @@ export function vbeBuckets(it: PairItems): VbeBuckets {
   const width = it.vbeToleranceMv + 4 * VBE_SLACK_MV;
   const key = new Float64Array(n);
   for (let a = 0; a < n; a++) key[a] = Math.floor((it.vLo[a] as number) / width);
-  const byKey = Int32Array.from({ length: n }, (_, a) => a).sort((x, y) => (key[x] as number) - (key[y] as number) || x - y);
+  // Items in key order, ties by index: a counting sort when the keys span a modest range (the usual
+  // case: tens of millivolts in 1 mV buckets), a comparison sort otherwise.
+  let kMin = Infinity;
+  let kMax = -Infinity;
+  for (let a = 0; a < n; a++) {
+    const k = key[a] as number;
+    if (k < kMin) kMin = k;
+    if (k > kMax) kMax = k;
+  }
+  let byKey: Int32Array;
+  if (n > 0 && kMax - kMin < 4 * n + 1024) {
+    const span = kMax - kMin + 1;
+    const at = new Int32Array(span + 1);
+    for (let a = 0; a < n; a++) at[(key[a] as number) - kMin + 1]++;
+    for (let k = 0; k < span; k++) at[k + 1] = (at[k + 1] as number) + (at[k] as number);
+    byKey = new Int32Array(n);
+    for (let a = 0; a < n; a++) byKey[at[(key[a] as number) - kMin]++ as number] = a;
+  } else {
+    byKey = Int32Array.from({ length: n }, (_, a) => a).sort((x, y) => (key[x] as number) - (key[y] as number) || x - y);
+  }
   const bucketOf = new Int32Array(n);
   const slot = new Int32Array(n);
   const starts: number[] = [];
