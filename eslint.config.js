@@ -13,7 +13,7 @@ const noFrameworks = [
 ];
 
 export default tseslint.config(
-  { ignores: ['dist/**', 'node_modules/**', '.data/**', 'coverage/**'] },
+  { ignores: ['dist/**', 'node_modules/**', '.data/**', '.scratch/**', 'coverage/**'] },
   js.configs.recommended,
   ...tseslint.configs.recommended,
   {

@@ -13,7 +13,7 @@ import { csrfProtection } from './http/csrf.ts';
 import { errorHandler, notFoundHandler } from './http/error-handler.ts';
 import { requireAuth } from './http/guards.ts';
 import { refuseUnstorableText } from './http/refuse-unstorable-text.ts';
-import { guardStoreErrors, throttleTouch } from './http/session-store.ts';
+import { cacheSessions, guardStoreErrors, throttleTouch } from './http/session-store.ts';
 import { auditRouter } from './modules/audit/audit.routes.ts';
 import { authRouter } from './modules/auth/auth.routes.ts';
 import { createPassport } from './modules/auth/passport.ts';
@@ -42,10 +42,15 @@ export interface AppOptions {
   clientDir?: string;
   /** SMTP transport for outgoing mail; built from config when absent. */
   mailTransport?: Transporter;
+  /**
+   * How long this process keeps a session row and a signed-in user after reading them (ms,
+   * default 2 000; 0 reads both on every request). See docs/scaling.md for several instances.
+   */
+  authCacheMs?: number;
 }
 
 /** Builds the Express app: middleware, routers, error handler. Does not listen. */
-export function createApp({ dataSource: ds, config = readConfig(), clientDir, mailTransport }: AppOptions): Express {
+export function createApp({ dataSource: ds, config = readConfig(), clientDir, mailTransport, authCacheMs = 2_000 }: AppOptions): Express {
   const transport = mailTransport ?? createMailTransport(config);
   const app = express();
   app.disable('x-powered-by');
@@ -76,8 +81,12 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir, ma
   api.use(
     session({
       name: 'bw.sid',
-      // The stored expiry is renewed at most once a minute per session (see throttleTouch).
-      store: throttleTouch(guardStoreErrors(new PgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 })), 60_000),
+      // The stored expiry is renewed at most once a minute per session (see throttleTouch); a
+      // session read is kept for authCacheMs (see cacheSessions).
+      store: cacheSessions(
+        throttleTouch(guardStoreErrors(new PgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 })), 60_000),
+        authCacheMs,
+      ),
       secret: config.sessionSecret,
       resave: false,
       saveUninitialized: false,
@@ -87,7 +96,7 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir, ma
       cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: 12 * 60 * 60 * 1000 },
     }),
   );
-  const passport = createPassport(ds);
+  const passport = createPassport(ds, { userCacheMs: authCacheMs });
   api.use(passport.initialize());
   api.use(passport.session());
   api.use(csrfProtection);

@@ -1,5 +1,6 @@
-import type { Store } from 'express-session';
+import type { SessionData, Store } from 'express-session';
 import { databaseUnavailable, isDatabaseUnavailable } from './database-errors.ts';
+import { TtlCache } from './ttl-cache.ts';
 
 /**
  * Turns the store's connection errors into the 503 "database unavailable" problem. Without it a
@@ -49,6 +50,55 @@ export function throttleTouch<S extends Store>(store: S, intervalMs: number, max
     }
     last.set(sid, now);
     touch(sid, session, callback);
+  };
+  return store;
+}
+
+/**
+ * Keeps each session read from the store for `ttlMs` in this process, so most requests of a
+ * signed-in user do not read the session row from PostgreSQL. Writes through this process (a
+ * new CSRF token, sign-in, sign-out) invalidate the entry at once; a sign-out through another
+ * instance takes effect here within `ttlMs` (docs/scaling.md). The session is kept as its JSON
+ * text and parsed per request, because express-session changes the object it is given. A
+ * cached session past its cookie's expiry is read again (the store then answers "none").
+ */
+export function cacheSessions<S extends Store>(store: S, ttlMs: number): S {
+  if (ttlMs <= 0) return store;
+  const cache = new TtlCache<string, string>(ttlMs);
+  const get = store.get.bind(store);
+  store.get = (sid, callback) => {
+    const now = Date.now();
+    const json = cache.get(sid, now);
+    if (json !== undefined) {
+      const sess = JSON.parse(json) as SessionData;
+      const expires = sess.cookie?.expires;
+      if (!expires || new Date(expires).getTime() > now) {
+        callback(null, sess);
+        return;
+      }
+      cache.invalidate(sid);
+    }
+    const ticket = cache.ticket(sid);
+    get(sid, (err, sess) => {
+      if (!err && sess) cache.set(sid, JSON.stringify(sess), ticket);
+      callback(err, sess);
+    });
+  };
+  const set = store.set.bind(store);
+  store.set = (sid, sess, callback) => {
+    cache.invalidate(sid);
+    set(sid, sess, (err) => {
+      cache.invalidate(sid);
+      callback?.(err);
+    });
+  };
+  const destroy = store.destroy.bind(store);
+  store.destroy = (sid, callback) => {
+    cache.invalidate(sid);
+    destroy(sid, (err) => {
+      cache.invalidate(sid);
+      callback?.(err);
+    });
   };
   return store;
 }

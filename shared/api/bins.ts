@@ -1,3 +1,4 @@
+import type { BenchWork } from '../domain/inspection/index.ts';
 import type { ContainerKind, ContainerStatus } from '../domain/screening/index.ts';
 
 export type { ContainerKind, ContainerStatus } from '../domain/screening/index.ts';
@@ -249,6 +250,11 @@ export interface LotScreening {
   outside: { count: number; pct: number };
   setup: ScreeningSetup;
   containers: ContainerRow[];
+  /**
+   * What the bench may still record: `open` before the disposition is signed, `screen-only` after
+   * a signed MRB "100 % screen" (screening sessions only), `closed` otherwise.
+   */
+  benchWork: BenchWork;
 }
 
 /** Label stocks for bin labels: thermal rolls (one label per page) and sheets with a grid. */

@@ -258,7 +258,10 @@ export interface CancelKitRequest {
   reason?: string;
 }
 
-/** GET /api/lots/:id/kits — which kits hold parts of the lot. */
+/**
+ * GET /api/lots/:id/kits — which kits hold parts of the lot (reserved or pulled; parts given back
+ * to stock by a cancel or an expiry are not counted), newest kit first.
+ */
 export interface LotKitRow {
   kitId: number;
   code: string;
@@ -266,6 +269,9 @@ export interface LotKitRow {
   /** Parts of this lot in the kit, and how many of them are pulled. */
   parts: number;
   pulled: number;
+  /** When the first and the last part of this lot were pulled into the kit; null before any pull. */
+  firstPulledAt: string | null;
+  lastPulledAt: string | null;
   createdAt: string;
   createdByName: string;
 }

@@ -1,12 +1,14 @@
 import { Store, type SessionData } from 'express-session';
 import pg from 'pg';
-import { describe, expect, it, vi } from 'vitest';
+import { beforeAll, describe, expect, it, vi } from 'vitest';
 import { AppError } from '../../server/http/app-error.ts';
-import { guardStoreErrors, throttleTouch } from '../../server/http/session-store.ts';
+import { cacheSessions, guardStoreErrors, throttleTouch } from '../../server/http/session-store.ts';
 import { AuditEntry } from '../../server/modules/audit/audit-entry.entity.ts';
 import { Lot } from '../../server/modules/lots/lot.entity.ts';
 import { makeBenchLot } from './bench-fixtures.ts';
-import { signedIn, useTestApp, type Agent } from './helpers.ts';
+import { createApp } from '../../server/app.ts';
+import request from 'supertest';
+import { signedIn, useTestApp, type Agent, type TestContext } from './helpers.ts';
 
 // The request paths the load bench (scripts/bench-load.ts) drives: recording a reading and the lots list.
 const ctx = useTestApp();
@@ -75,12 +77,21 @@ describe('recording readings on one lot from many benches at once', () => {
 });
 
 describe('SQL statements per request on the hot paths', () => {
+  // An app whose session and user cache outlives the test, so the counts do not depend on how
+  // fast the machine is (the default keeps them for 2 s, authCacheMs), and one without the cache.
+  let cached: TestContext;
+  let uncached: TestContext;
+  beforeAll(() => {
+    cached = { ds: ctx.ds, app: createApp({ dataSource: ctx.ds, authCacheMs: 60_000 }) };
+    uncached = { ds: ctx.ds, app: createApp({ dataSource: ctx.ds, authCacheMs: 0 }) };
+  });
+
   async function statementsFor(fn: () => Promise<unknown>): Promise<string[]> {
     const seen: string[] = [];
     const original = pg.Client.prototype.query;
     const spy = vi.spyOn(pg.Client.prototype, 'query').mockImplementation(function (this: pg.Client, ...args: unknown[]) {
       const q = args[0] as string | { text: string };
-      seen.push((typeof q === 'string' ? q : q.text).replace(/\s+/g, ' ').slice(0, 60));
+      seen.push((typeof q === 'string' ? q : q.text).replace(/\s+/g, ' ').trim().slice(0, 60));
       return (original as (...a: unknown[]) => unknown).apply(this, args) as never;
     });
     try {
@@ -91,36 +102,65 @@ describe('SQL statements per request on the hot paths', () => {
     return seen;
   }
 
-  it('recording a reading takes 7: session, user, begin, session of the lot, locked lot with part type, insert, commit', async () => {
+  it('recording a reading takes 4 with the session and user cached: begin, lot + session + part type under a shared lock, insert, commit', async () => {
     const { lot } = await makeBenchLot(ctx.ds, { quantity: 500 });
-    const { agent } = await signedIn(ctx, 'inspector');
+    const { agent } = await signedIn(cached, 'inspector');
     const sessionId = await openSession(agent, lot.id);
-    await record(agent, lot.id, sessionId, 1).expect(201); // the session's expiry is touched on this one
+    await record(agent, lot.id, sessionId, 1).expect(201); // reads and caches the session and the user; touches the expiry
     const seen = await statementsFor(() => record(agent, lot.id, sessionId, 2).expect(201));
-    expect(seen, seen.join('\n')).toHaveLength(7);
+    expect(seen, seen.join('\n')).toHaveLength(4);
+    expect(seen[0]).toBe('BEGIN');
+    expect(seen[1]).toMatch(/^SELECT s\.id AS session_id/);
+    expect(seen[2]).toMatch(/^INSERT INTO measurement/);
+    expect(seen[3]).toBe('COMMIT');
+  });
+
+  it('without the cache, recording a reading takes 6: the session row and the user, then the same 4', async () => {
+    const { lot } = await makeBenchLot(ctx.ds, { quantity: 500 });
+    const { agent } = await signedIn(uncached, 'inspector');
+    const sessionId = await openSession(agent, lot.id);
+    await record(agent, lot.id, sessionId, 1).expect(201);
+    const seen = await statementsFor(() => record(agent, lot.id, sessionId, 2).expect(201));
+    expect(seen, seen.join('\n')).toHaveLength(6);
     expect(seen.filter((q) => /^UPDATE "session"/.test(q))).toEqual([]);
   });
 
-  it('reading the lots list takes 4: session, user, one page with supplier and part type, the count', async () => {
+  it('reading the lots list takes 1 with the session and user cached: the page with supplier, part type and the total', async () => {
     await makeBenchLot(ctx.ds);
-    const { agent } = await signedIn(ctx, 'buyer');
-    await agent.get('/api/lots').expect(200);
+    const { agent } = await signedIn(cached, 'buyer');
+    const first = await agent.get('/api/lots?pageSize=10').expect(200);
     const seen = await statementsFor(() => agent.get('/api/lots?pageSize=10').expect(200));
-    expect(seen, seen.join('\n')).toHaveLength(4);
+    expect(seen, seen.join('\n')).toHaveLength(1);
     expect(seen.filter((q) => q.includes('DISTINCT "distinctAlias"'))).toEqual([]);
+    // A page past the end has no row to carry the total: it is counted on its own, and the same.
+    const past = Math.ceil(first.body.total / 10) + 1;
+    const empty = await agent.get(`/api/lots?pageSize=10&page=${past}`).expect(200);
+    expect(empty.body.items).toEqual([]);
+    expect(empty.body.total).toBeGreaterThanOrEqual(first.body.total);
   });
 });
 
 class FakeStore extends Store {
   touches = 0;
+  gets = 0;
   getError: unknown = null;
-  get(_sid: string, cb: (err: unknown, session?: SessionData | null) => void) {
-    cb(this.getError, null);
+  sessions = new Map<string, SessionData>();
+  /** When set, get() answers only when the test calls the returned function. */
+  holdGets = false;
+  held: (() => void)[] = [];
+  get(sid: string, cb: (err: unknown, session?: SessionData | null) => void) {
+    this.gets++;
+    const s = this.sessions.get(sid) ?? null;
+    const answer = () => cb(this.getError, s && (JSON.parse(JSON.stringify(s)) as SessionData));
+    if (this.holdGets) this.held.push(answer);
+    else answer();
   }
-  set(_sid: string, _s: SessionData, cb?: (err?: unknown) => void) {
+  set(sid: string, s: SessionData, cb?: (err?: unknown) => void) {
+    this.sessions.set(sid, s);
     cb?.();
   }
-  destroy(_sid: string, cb?: (err?: unknown) => void) {
+  destroy(sid: string, cb?: (err?: unknown) => void) {
+    this.sessions.delete(sid);
     cb?.();
   }
   touch(_sid: string, _s: SessionData, cb?: (err?: unknown) => void) {
@@ -163,5 +203,88 @@ describe('session store wrappers', () => {
     store.getError = null;
     store.get('x', (err) => (got = err));
     expect(got).toBeNull();
+  });
+});
+
+describe('the session and user cache (authCacheMs)', () => {
+  const sessionOf = (csrfToken: string, expires: Date): SessionData => ({ csrfToken, cookie: { originalMaxAge: 60_000, expires, httpOnly: true, path: '/' } }) as unknown as SessionData;
+  const read = (store: Store, sid: string) =>
+    new Promise<SessionData | null | undefined>((resolve, reject) => store.get(sid, (err, sess) => (err ? reject(err as Error) : resolve(sess))));
+
+  it('cacheSessions answers a read within the TTL from memory, reads the store again after it, and a write or a sign-out through it drops the entry at once', async () => {
+    const now = vi.spyOn(Date, 'now').mockReturnValue(1_000_000);
+    try {
+      const inner = new FakeStore();
+      inner.sessions.set('a', sessionOf('t1', new Date(1_000_000 + 3_600_000)));
+      const store = cacheSessions(inner, 2_000);
+      expect((await read(store, 'a'))?.csrfToken).toBe('t1');
+      expect((await read(store, 'a'))?.csrfToken).toBe('t1');
+      expect(inner.gets).toBe(1);
+      now.mockReturnValue(1_000_000 + 2_000);
+      await read(store, 'a');
+      expect(inner.gets).toBe(2);
+      await new Promise<void>((resolve) => store.set('a', sessionOf('t2', new Date(1_000_000 + 3_600_000)), () => resolve()));
+      expect((await read(store, 'a'))?.csrfToken).toBe('t2');
+      expect(inner.gets).toBe(3);
+      await new Promise<void>((resolve) => store.destroy('a', () => resolve()));
+      expect(await read(store, 'a')).toBeNull();
+      expect(inner.gets).toBe(4);
+      // A session that is not there is not remembered: the next request asks the store again.
+      await read(store, 'a');
+      expect(inner.gets).toBe(5);
+    } finally {
+      now.mockRestore();
+    }
+  });
+
+  it('a read that started before a sign-out does not put the signed-out session back into the cache', async () => {
+    const inner = new FakeStore();
+    inner.sessions.set('a', sessionOf('t1', new Date(Date.now() + 3_600_000)));
+    const store = cacheSessions(inner, 60_000);
+    inner.holdGets = true;
+    const slow = read(store, 'a');
+    await new Promise<void>((resolve) => store.destroy('a', () => resolve()));
+    inner.held.shift()!(); // the old row arrives after the sign-out
+    expect((await slow)?.csrfToken).toBe('t1');
+    inner.holdGets = false;
+    expect(await read(store, 'a')).toBeNull();
+    expect(inner.gets).toBe(2);
+  });
+
+  it('a cached session past its cookie expiry is read from the store again', async () => {
+    const now = vi.spyOn(Date, 'now').mockReturnValue(5_000_000);
+    try {
+      const inner = new FakeStore();
+      inner.sessions.set('a', sessionOf('t1', new Date(5_000_500)));
+      const store = cacheSessions(inner, 60_000);
+      await read(store, 'a');
+      now.mockReturnValue(5_000_600);
+      await read(store, 'a');
+      expect(inner.gets).toBe(2);
+    } finally {
+      now.mockRestore();
+    }
+  });
+
+  it('with sessions and users cached, a signed-out cookie is refused at the next request, even replayed', async () => {
+    const app = createApp({ dataSource: ctx.ds, authCacheMs: 60_000 });
+    const { agent } = await signedIn({ ds: ctx.ds, app }, 'assembler');
+    const me = await agent.get('/api/auth/me').expect(200);
+    const cookie = (me.request as unknown as { cookies: string }).cookies;
+    await request(app).get('/api/auth/me').set('Cookie', cookie).expect(200);
+    await agent.post('/api/auth/logout').set('x-csrf-token', agent.csrf).expect(204);
+    await request(app).get('/api/auth/me').set('Cookie', cookie).expect(401);
+  });
+
+  it('with sessions and users cached, a role change shows at the next request and a deactivation signs the user out at once', async () => {
+    const app = createApp({ dataSource: ctx.ds, authCacheMs: 60_000 });
+    const { agent: quality } = await signedIn({ ds: ctx.ds, app }, 'quality');
+    const { agent, user } = await signedIn({ ds: ctx.ds, app }, 'inspector');
+    expect((await agent.get('/api/auth/me').expect(200)).body.user.role).toBe('inspector');
+    await quality.patch(`/api/users/${user.id}`).set('x-csrf-token', quality.csrf).send({ role: 'buyer' }).expect(200);
+    expect((await agent.get('/api/auth/me').expect(200)).body.user.role).toBe('buyer');
+    await agent.post('/api/lots/1/measurements').set('x-csrf-token', agent.csrf).send({}).expect(403);
+    await quality.patch(`/api/users/${user.id}`).set('x-csrf-token', quality.csrf).send({ active: false }).expect(200);
+    await agent.get('/api/auth/me').expect(401);
   });
 });

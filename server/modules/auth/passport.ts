@@ -2,10 +2,16 @@ import { Passport } from 'passport';
 import { Strategy as LocalStrategy } from 'passport-local';
 import type { DataSource } from 'typeorm';
 import type { SessionUser } from '../../../shared/api/auth.ts';
+import { activeUserCache } from '../users/active-user-cache.ts';
 import { authenticate, findActiveUser } from '../users/users.service.ts';
 
-/** One Passport instance per app. The session holds only the user id; each request reloads the user. */
-export function createPassport(ds: DataSource): InstanceType<typeof Passport> {
+/**
+ * One Passport instance per app. The session holds only the user id; each request reloads the
+ * user, from a cache of `userCacheMs` (a change through this process is seen at once, see
+ * active-user-cache.ts; 0 turns the cache off).
+ */
+export function createPassport(ds: DataSource, opts: { userCacheMs?: number } = {}): InstanceType<typeof Passport> {
+  const users = activeUserCache(ds, opts.userCacheMs ?? 0);
   const passport = new Passport();
   passport.use(
     new LocalStrategy({ usernameField: 'email', passwordField: 'password' }, (email, password, done) => {
@@ -17,8 +23,14 @@ export function createPassport(ds: DataSource): InstanceType<typeof Passport> {
   );
   passport.serializeUser((user, done) => done(null, (user as SessionUser).id));
   passport.deserializeUser((id: number, done) => {
+    const hit = users.get(id);
+    if (hit) return done(null, hit);
+    const ticket = users.ticket(id);
     findActiveUser(ds, id).then(
-      (user) => done(null, user ?? false),
+      (user) => {
+        if (user) users.set(id, user, ticket);
+        done(null, user ?? false);
+      },
       (err) => done(err),
     );
   });

@@ -1,7 +1,11 @@
 import type { EntityManager } from 'typeorm';
+import { MRB_ACTION_LABELS, type MrbAction } from '../../../shared/api/disposition.ts';
+import type { SessionMode } from '../../../shared/api/measurements.ts';
 import type { BenchLot, BenchPartType } from '../../../shared/api/sampling.ts';
+import { SCREEN_AFTER_SIGNING_ACTION, benchWorkFor, modeAllowed, type BenchWork } from '../../../shared/domain/inspection/index.ts';
 import { AppError } from '../../http/app-error.ts';
 import { PartType } from '../catalog/part-type.entity.ts';
+import { Disposition } from '../disposition/disposition.entity.ts';
 import { Lot } from '../lots/lot.entity.ts';
 import { Supplier } from '../suppliers/supplier.entity.ts';
 
@@ -72,11 +76,40 @@ export function toBenchPartType(p: PartType): BenchPartType {
   };
 }
 
-/** Lot states in which the bench may still record measurements. */
+/** Lot states in which the bench may still record measurements of either mode. */
 export const MEASURABLE_STATUSES = new Set(['received', 'inspecting', 'awaiting-signature']);
 
-export function assertMeasurable(lot: Lot): void {
-  if (!MEASURABLE_STATUSES.has(lot.status)) {
-    throw AppError.conflict(`Lot ${lot.code} is ${lot.status}: its disposition is signed and its measurements are closed.`);
+/**
+ * What the bench may still record on a lot (shared/domain/inspection benchWorkFor). The signed
+ * disposition is read only for an MRB lot, so the hot path (a lot under inspection) costs no query.
+ */
+export async function benchWorkOf(m: EntityManager, lot: Pick<Lot, 'id' | 'status'>): Promise<BenchWork> {
+  if (MEASURABLE_STATUSES.has(lot.status)) return 'open';
+  if (lot.status !== 'mrb') return 'closed';
+  const d = await m.findOne(Disposition, { where: { lotId: lot.id }, select: { lotId: true, mrbAction: true, signedAt: true } });
+  return benchWorkFor(lot.status, d?.signedAt ? d.mrbAction : null);
+}
+
+const SCREEN_LABEL = MRB_ACTION_LABELS[SCREEN_AFTER_SIGNING_ACTION as MrbAction];
+
+/**
+ * Refuses bench work a lot no longer takes (409): every reading once the disposition is signed,
+ * except 100 % screening of a lot whose signed disposition is MRB "100 % screen". `mode` is the
+ * mode of the session the work goes into, or null while that is not known yet (then only a lot
+ * closed to both modes is refused). Answers what the lot still takes.
+ */
+export async function assertMeasurable(m: EntityManager, lot: Lot, mode: SessionMode | null): Promise<BenchWork> {
+  const work = await benchWorkOf(m, lot);
+  if (mode === null ? work !== 'closed' : modeAllowed(work, mode)) return work;
+  if (work === 'screen-only') {
+    throw AppError.conflict(
+      `Lot ${lot.code} has the signed MRB disposition "${SCREEN_LABEL}": only 100 % screening sessions record on it now. The sample its disposition rests on is closed.`,
+      [{ field: 'mode', message: `only mode screen after a signed "${SCREEN_LABEL}" disposition` }],
+    );
   }
+  throw AppError.conflict(
+    `Lot ${lot.code} is ${lot.status}: its disposition is signed and its measurements are closed.` +
+      (mode === 'screen' ? ` Screening after signing is open only when the signed disposition is MRB "${SCREEN_LABEL}".` : ''),
+    mode === 'screen' ? [{ field: 'mode', message: `screening after signing needs the MRB disposition "${SCREEN_LABEL}"` }] : undefined,
+  );
 }

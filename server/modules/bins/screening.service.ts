@@ -14,9 +14,11 @@ import { assignBin, binCounts, type GainBin } from '../../../shared/domain/binni
 import { planPlacements, statusAfter, type ContainerState, type ContainerStatus } from '../../../shared/domain/screening/index.ts';
 import { AppError } from '../../http/app-error.ts';
 import { recordAudit } from '../audit/audit.service.ts';
+import { benchWorkOf } from '../bench/lot-context.ts';
 import { getCurrentScheme, lockSchemeVersion } from '../catalog/bin-schemes.service.ts';
 import { nextContainerCodes } from './container-code.ts';
 import { CONTAINER_SELECT, toContainerBin, toContainerRow, type ContainerSqlRow } from './container-view.ts';
+import type { LotStatus } from '../lots/lot.entity.ts';
 import { insertMovement } from './containers.service.ts';
 
 /** A current reading of a screened part, values referred to 25 °C (what the bins are defined at). */
@@ -503,9 +505,9 @@ export async function saveSetup(ds: DataSource, actor: SessionUser, lotId: numbe
 /** GET /api/lots/:id/screening: yield per bin (counts and %), outside count, the lot's containers. */
 export async function lotScreening(ds: DataSource, lotId: number): Promise<LotScreening> {
   const [lot] = (await ds.query(
-    `SELECT l.id, l.code, l.part_type_id, l.bin_scheme_id, p.part_number FROM lot l JOIN part_type p ON p.id = l.part_type_id WHERE l.id = $1`,
+    `SELECT l.id, l.code, l.part_type_id, l.bin_scheme_id, l.status, p.part_number FROM lot l JOIN part_type p ON p.id = l.part_type_id WHERE l.id = $1`,
     [lotId],
-  )) as (LotRowLite & { part_number: string })[];
+  )) as (LotRowLite & { part_number: string; status: LotStatus })[];
   if (!lot) throw AppError.notFound(`Lot ${lotId}`);
   const schemeId = lot.bin_scheme_id ?? (await getCurrentScheme(ds.manager, lot.part_type_id))?.id ?? null;
   const scheme = schemeId === null ? null : await loadScheme(ds.manager, schemeId);
@@ -550,6 +552,7 @@ export async function lotScreening(ds: DataSource, lotId: number): Promise<LotSc
     outside: { count: outside, pct: pct(outside) },
     setup: await loadSetup(ds.manager, lotId),
     containers: containers.map(toContainerRow),
+    benchWork: await benchWorkOf(ds.manager, { id: lot.id, status: lot.status }),
   };
 }
 

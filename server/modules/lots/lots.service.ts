@@ -1,9 +1,10 @@
 import { QueryFailedError, type DataSource, type EntityManager } from 'typeorm';
 import type { SessionUser } from '../../../shared/api/auth.ts';
-import type { CreateLotRequest, LotDetail, LotDocumentRow, LotRow, LotSort, LotStatus, ReceivingOptions } from '../../../shared/api/lots.ts';
+import type { CreateLotRequest, DryBagState, LotDetail, LotDocumentRow, LotRow, LotSort, LotStatus, ReceivingOptions } from '../../../shared/api/lots.ts';
 import type { Page } from '../../../shared/api/users.ts';
 import { ESD_HBM_CLASSES, describeEsdClass } from '../../../shared/domain/esd/index.ts';
 import { AppError } from '../../http/app-error.ts';
+import { preparedQuery } from '../../prepared-query.ts';
 import { recordAudit } from '../audit/audit.service.ts';
 import { PartType } from '../catalog/part-type.entity.ts';
 import { readLabel } from '../labels/label-reading.ts';
@@ -100,30 +101,91 @@ export interface LotQuery {
   dir: 'asc' | 'desc';
 }
 
-const SORT_COLUMN: Record<LotSort, string> = {
+const SORT_SQL: Record<LotSort, string> = {
   code: 'l.code',
-  receivedAt: 'l.receivedAt',
+  receivedAt: 'l.received_at',
   quantity: 'l.quantity',
   status: 'l.status',
   supplier: 's.name',
-  partNumber: 'p.partNumber',
+  partNumber: 'p.part_number',
 };
 
+interface LotListRow {
+  id: number;
+  code: string;
+  status: LotStatus;
+  quantity: number;
+  purchase_order: string | null;
+  supplier_lot: string | null;
+  date_code: string | null;
+  msl: string | null;
+  dry_bag: DryBagState;
+  bag_opened_at: Date | null;
+  received_at: Date;
+  supplier_id: number;
+  supplier_code: string;
+  supplier_name: string;
+  part_type_id: number;
+  part_number: string;
+  part_msl: string | null;
+}
+
+/**
+ * A page of lots, filtered and sorted on the server, and the total: one named prepared statement
+ * per combination of filters and sort (parsed and planned once per connection), reading only the
+ * list's columns. The total comes with the page (an InitPlan, same snapshot); only a page past
+ * the end, which has no row to carry it, counts separately. The count needs no joins: every lot
+ * has its supplier and part type (NOT NULL foreign keys).
+ */
 export async function listLots(ds: DataSource, q: LotQuery, now = new Date()): Promise<Page<LotRow>> {
-  const qb = ds.getRepository(Lot).createQueryBuilder('l').innerJoinAndSelect('l.supplier', 's').innerJoinAndSelect('l.partType', 'p');
-  if (q.status) qb.andWhere('l.status = :status', { status: q.status });
-  if (q.supplierId) qb.andWhere('l.supplier_id = :sid', { sid: q.supplierId });
-  if (q.partTypeId) qb.andWhere('l.part_type_id = :pid', { pid: q.partTypeId });
-  if (q.receivedFrom) qb.andWhere('l.received_at >= :from', { from: q.receivedFrom });
-  if (q.receivedBefore) qb.andWhere('l.received_at < :before', { before: q.receivedBefore });
-  if (q.search) {
-    qb.andWhere('(l.code ILIKE :s OR l.purchase_order ILIKE :s OR l.supplier_lot ILIKE :s)', { s: `%${q.search.replace(/[%_\\]/g, '\\$&')}%` });
-  }
-  qb.orderBy(SORT_COLUMN[q.sort], q.dir === 'desc' ? 'DESC' : 'ASC').addOrderBy('l.id', q.dir === 'desc' ? 'DESC' : 'ASC');
-  // offset/limit, not skip/take: the joins are many-to-one (one row per lot), so TypeORM's extra
-  // DISTINCT-ids query that skip/take adds for joins is not needed.
-  const [rows, total] = await qb.offset((q.page - 1) * q.pageSize).limit(q.pageSize).getManyAndCount();
-  return { items: rows.map((l) => toLotRow(l, now)), total, page: q.page, pageSize: q.pageSize };
+  const where: string[] = [];
+  const values: unknown[] = [];
+  const add = (sql: string, v: unknown) => {
+    values.push(v);
+    where.push(sql.replaceAll('?', `$${values.length}`));
+  };
+  if (q.status) add('l.status = ?', q.status);
+  if (q.supplierId) add('l.supplier_id = ?', q.supplierId);
+  if (q.partTypeId) add('l.part_type_id = ?', q.partTypeId);
+  if (q.receivedFrom) add('l.received_at >= ?', q.receivedFrom);
+  if (q.receivedBefore) add('l.received_at < ?', q.receivedBefore);
+  if (q.search) add('(l.code ILIKE ? OR l.purchase_order ILIKE ? OR l.supplier_lot ILIKE ?)', `%${q.search.replace(/[%_\\]/g, '\\$&')}%`);
+  const whereSql = where.length ? `WHERE ${where.join(' AND ')}` : '';
+  const countSql = `SELECT count(*)::int AS total FROM lot l ${whereSql}`;
+  const dir = q.dir === 'desc' ? 'DESC' : 'ASC';
+  const n = values.length;
+  const rows = await preparedQuery<LotListRow & { total: number }>(
+    ds,
+    `SELECT l.id, l.code, l.status, l.quantity, l.purchase_order, l.supplier_lot, l.date_code, l.msl, l.dry_bag, l.bag_opened_at, l.received_at,
+            s.id AS supplier_id, s.code AS supplier_code, s.name AS supplier_name, p.id AS part_type_id, p.part_number, p.msl AS part_msl,
+            (${countSql}) AS total
+       FROM lot l
+       JOIN supplier s ON s.id = l.supplier_id
+       JOIN part_type p ON p.id = l.part_type_id
+       ${whereSql}
+      ORDER BY ${SORT_SQL[q.sort]} ${dir}, l.id ${dir}
+      LIMIT $${n + 1} OFFSET $${n + 2}`,
+    [...values, q.pageSize, (q.page - 1) * q.pageSize],
+  );
+  const total = rows.length ? rows[0].total : (await preparedQuery<{ total: number }>(ds, countSql, values))[0].total;
+  const items = rows.map(
+    (r): LotRow => ({
+      id: r.id,
+      code: r.code,
+      status: r.status,
+      supplier: { id: r.supplier_id, code: r.supplier_code, name: r.supplier_name },
+      partType: { id: r.part_type_id, partNumber: r.part_number },
+      quantity: r.quantity,
+      purchaseOrder: r.purchase_order,
+      supplierLot: r.supplier_lot,
+      dateCode: r.date_code,
+      msl: r.msl,
+      dryBag: r.dry_bag,
+      receivedAt: r.received_at.toISOString(),
+      floorLife: lotFloorLife({ msl: r.msl, dryBag: r.dry_bag, bagOpenedAt: r.bag_opened_at }, r.part_msl, now),
+    }),
+  );
+  return { items, total, page: q.page, pageSize: q.pageSize };
 }
 
 export async function listDocuments(m: DataSource | EntityManager, lotId: number): Promise<LotDocumentRow[]> {

@@ -151,8 +151,9 @@ export function parseAndValidate(
   return cols;
 }
 
-const FLOAT8 = 701;
-const INT4 = 23;
+/** Type OIDs of float8 and int4 (pg_type), the element types binaryArray writes. */
+export const FLOAT8 = 701;
+export const INT4 = 23;
 
 /**
  * A one-dimensional PostgreSQL array in the binary wire format of array_recv (ndim, has-nulls
@@ -231,8 +232,9 @@ export async function bulkInsert(
 export async function importMeasurements(ds: DataSource, actor: SessionUser, lotId: number, input: ImportInput, progress: Progress = () => {}): Promise<ImportResult> {
   const started = performance.now();
   const pre = await loadLotContext(ds.manager, lotId);
-  assertMeasurable(pre.lot);
+  await assertMeasurable(ds.manager, pre.lot, null);
   const preSession = await openSessionOf(ds.manager, lotId, input.sessionId);
+  await assertMeasurable(ds.manager, pre.lot, preSession.mode);
   const cols = parseAndValidate(
     input,
     { lotQuantity: pre.lot.quantity, ambientC: preSession.ambientC, hfeTcPctPerC: pre.partType.hfeTcPctPerC, vbeTcMvPerC: pre.partType.vbeTcMvPerC },
@@ -240,8 +242,9 @@ export async function importMeasurements(ds: DataSource, actor: SessionUser, lot
   );
   await ds.transaction(async (m) => {
     const { lot, partType } = await loadLotContext(m, lotId, true);
-    assertMeasurable(lot);
+    await assertMeasurable(m, lot, null);
     const session = await openSessionOf(m, lotId, input.sessionId);
+    await assertMeasurable(m, lot, session.mode);
     if (session.ambientC !== preSession.ambientC || partType.hfeTcPctPerC !== pre.partType.hfeTcPctPerC || partType.vbeTcMvPerC !== pre.partType.vbeTcMvPerC) {
       throw AppError.conflict('The session or part type changed during the import; import again.');
     }

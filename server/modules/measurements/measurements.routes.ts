@@ -14,7 +14,8 @@ import { ImportFieldsDto } from './import.dto.ts';
 import { getInstrumentMapping, importMeasurements } from './measurement-import.service.ts';
 import { writeMeasurementsCsv } from './measurements-csv.ts';
 import { CorrectMeasurementDto, RecordMeasurementDto, StartSessionDto } from './measurements.dto.ts';
-import { correctMeasurement, listMeasurements, recordMeasurement } from './measurements.service.ts';
+import { correctMeasurement, listMeasurements } from './measurements.service.ts';
+import { ReadingBatcher } from './reading-batcher.ts';
 import { lotSummary } from './lot-summary.service.ts';
 import { closeSession, listSessions, startSession } from './sessions.service.ts';
 
@@ -52,6 +53,8 @@ function parseJsonField(raw: unknown, field: string): unknown {
 export function measurementsRouter(ds: DataSource): Router {
   const r = Router();
   const writer = requireRole('inspector');
+  // Grid readings arriving together are written together (group commit, see reading-batcher.ts).
+  const readings = new ReadingBatcher(ds);
 
   r.get('/lots/:id/sessions', async (req, res) => {
     res.json(await listSessions(ds, parseLotId(req.params.id)));
@@ -90,7 +93,7 @@ export function measurementsRouter(ds: DataSource): Router {
   r.post('/lots/:id/measurements', writer, async (req, res) => {
     const lotId = parseLotId(req.params.id);
     const dto = await parseBody(RecordMeasurementDto, req.body);
-    res.status(201).json(await recordMeasurement(ds, currentUser(req), lotId, dto));
+    res.status(201).json(await readings.record(currentUser(req), lotId, dto));
   });
 
   r.post('/lots/:id/measurements/import', writer, receiveFile, async (req, res) => {

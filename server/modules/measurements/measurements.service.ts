@@ -29,12 +29,18 @@ export function normalise(reading: Reading, ambientC: number, part: Pick<PartTyp
   };
 }
 
-interface RowExtras {
+export interface RowExtras {
   ambient_c: number;
   creator_name: string;
 }
 
-function toRow(m: Measurement, extras: RowExtras, part: PartType): MeasurementRow {
+/** The stored fields of a reading that its API row shows. */
+export type StoredReading = Pick<
+  Measurement,
+  'id' | 'sessionId' | 'position' | 'hfe' | 'vbeMv' | 'vceSatMv' | 'leakageNa' | 'hfe25' | 'vbeMv25' | 'source' | 'supersedesId' | 'superseded' | 'correctionReason' | 'createdAt'
+>;
+
+export function toRow(m: StoredReading, extras: RowExtras, part: Pick<PartType, 'hfeMin' | 'hfeMax' | 'vbeMinMv' | 'vbeMaxMv'>): MeasurementRow {
   return {
     id: String(m.id),
     sessionId: m.sessionId,
@@ -137,7 +143,7 @@ async function lockForRecording(m: EntityManager, lotId: number, sessionId: numb
   if (!session) {
     // The rare refusals keep their order: unknown lot 404, closed lot 409, foreign session 422.
     const { lot } = await loadLotContext(m, lotId);
-    assertMeasurable(lot);
+    await assertMeasurable(m, lot, null);
     await openSessionOf(m, lotId, sessionId);
     throw AppError.notFound(`Session ${sessionId} of lot ${lotId}`);
   }
@@ -149,15 +155,23 @@ async function lockForRecording(m: EntityManager, lotId: number, sessionId: numb
     .setLock(exclusive ? 'pessimistic_write' : 'pessimistic_read', undefined, ['l'])
     .getOne();
   if (!lot?.partType) throw AppError.notFound(`Lot ${lotId}`);
-  assertMeasurable(lot);
+  await assertMeasurable(m, lot, session.mode);
   if (session.closedAt) {
     throw AppError.conflict('The session is closed: start a new session to record more readings.', [{ field: 'sessionId', message: 'session closed' }]);
   }
   return { lot, partType: lot.partType, session };
 }
 
+/** 409 naming `position`: the position has a current reading (its id when known). */
+export function positionTaken(position: number, existingId: string | null): AppError {
+  return AppError.conflict(`Position ${position} already has a reading${existingId ? ` (#${existingId})` : ''}; record a correction to change it.`, [
+    { field: 'position', message: `position ${position} already measured` },
+  ]);
+}
+
 /**
- * Records one part's reading from the entry grid. A position that already has a current reading
+ * Records one part's reading from the entry grid, in a transaction of its own (the route
+ * records through ReadingBatcher, which comes here for every reading it does not write itself). A position that already has a current reading
  * answers 409 naming `position`: change a reading only through a correction.
  */
 export async function recordMeasurement(ds: DataSource, actor: SessionUser, lotId: number, input: RecordMeasurementRequest): Promise<MeasurementRow> {
@@ -170,9 +184,7 @@ export async function recordMeasurement(ds: DataSource, actor: SessionUser, lotI
     const saved = await insertIfPositionFree(m, actor, session, partType, input.position, reading);
     if (!saved) {
       const existing = await m.findOneBy(Measurement, { lotId, position: input.position, superseded: false });
-      throw AppError.conflict(`Position ${input.position} already has a reading${existing ? ` (#${existing.id})` : ''}; record a correction to change it.`, [
-        { field: 'position', message: `position ${input.position} already measured` },
-      ]);
+      throw positionTaken(input.position, existing?.id ?? null);
     }
     // Bins: in a screening session the part gets its bin, container and position in this transaction.
     await placeRecordedReading(m, actor, session, saved);
@@ -195,11 +207,21 @@ export async function correctMeasurement(
   const reading = readingOrThrow(input);
   return ds.transaction(async (m) => {
     const { lot, partType } = await loadLotContext(m, lotId, true);
-    assertMeasurable(lot);
+    await assertMeasurable(m, lot, null);
     const session = await openSessionOf(m, lotId, input.sessionId);
+    const work = await assertMeasurable(m, lot, session.mode);
     const old = await m.findOneBy(Measurement, { id: measurementId, lotId });
     if (!old) throw AppError.notFound(`Measurement ${measurementId} of lot ${lotId}`);
     if (old.superseded) throw AppError.conflict(`Measurement ${measurementId} is already superseded; correct the current reading of position ${old.position}.`);
+    if (work === 'screen-only') {
+      // Screening after a signed "100 % screen" disposition: the sample it rests on stays as signed.
+      const from = await m.findOneBy(MeasurementSession, { id: old.sessionId });
+      if (from?.mode !== 'screen') {
+        throw AppError.conflict(`The reading of position ${old.position} belongs to the sample the signed disposition of lot ${lot.code} rests on; it cannot be corrected now.`, [
+          { field: 'measurementId', message: 'a sample reading of a signed lot' },
+        ]);
+      }
+    }
     await m.update(Measurement, { id: old.id }, { superseded: true });
     const saved = await insertReading(m, actor, session, partType, old.position, reading, { supersedesId: old.id, correctionReason: input.reason.trim() });
     // Bins: a corrected screened part keeps its place or moves to its new bin, in this transaction.

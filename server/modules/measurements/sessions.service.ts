@@ -48,7 +48,8 @@ export async function markInspecting(m: EntityManager, actor: SessionUser, lot: 
 export async function startSession(ds: DataSource, actor: SessionUser, lotId: number, input: StartSessionRequest): Promise<SessionRow> {
   return ds.transaction(async (m) => {
     const { lot } = await loadLotContext(m, lotId, true);
-    assertMeasurable(lot);
+    // After a signed MRB "100 % screen" disposition only screening sessions start (lot-context).
+    await assertMeasurable(m, lot, input.mode);
     if (input.mode === 'screen') await assertScreenable(m, lot);
     await m.update(MeasurementSession, { lotId, operatorId: actor.id, closedAt: IsNull() }, { closedAt: new Date() });
     const saved = await m.save(

@@ -262,7 +262,8 @@ export async function lotKits(ds: DataSource, lotId: number): Promise<LotKitRow[
   if (!lot[0]) throw AppError.notFound(`Lot ${lotId}`);
   const rows = (await ds.query(
     `SELECT k.id, k.code, k.status, k.created_at, u.name AS created_by_name,
-            count(*)::int AS parts, count(kp.pulled_at)::int AS pulled
+            count(*)::int AS parts, count(kp.pulled_at)::int AS pulled,
+            min(kp.pulled_at) AS first_pulled_at, max(kp.pulled_at) AS last_pulled_at
        FROM kit_part kp
        JOIN kit_request k ON k.id = kp.kit_id
        JOIN app_user u ON u.id = k.created_by
@@ -270,13 +271,25 @@ export async function lotKits(ds: DataSource, lotId: number): Promise<LotKitRow[
       GROUP BY k.id, u.name
       ORDER BY k.created_at DESC, k.id DESC`,
     [lotId],
-  )) as { id: number; code: string; status: KitStatus; created_at: Date; created_by_name: string; parts: number; pulled: number }[];
+  )) as {
+    id: number;
+    code: string;
+    status: KitStatus;
+    created_at: Date;
+    created_by_name: string;
+    parts: number;
+    pulled: number;
+    first_pulled_at: Date | null;
+    last_pulled_at: Date | null;
+  }[];
   return rows.map((r) => ({
     kitId: r.id,
     code: r.code,
     status: r.status,
     parts: r.parts,
     pulled: r.pulled,
+    firstPulledAt: iso(r.first_pulled_at),
+    lastPulledAt: iso(r.last_pulled_at),
     createdAt: new Date(r.created_at).toISOString(),
     createdByName: r.created_by_name,
   }));

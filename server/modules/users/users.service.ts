@@ -4,6 +4,7 @@ import type { CreateUserRequest, Page, UpdateUserRequest, UserRow } from '../../
 import { AppError } from '../../http/app-error.ts';
 import { recordAudit } from '../audit/audit.service.ts';
 import { dummyHash, hashPassword, verifyPassword } from '../auth/password.ts';
+import { forgetCachedUser } from './active-user-cache.ts';
 import { User } from './user.entity.ts';
 
 export function toSessionUser(u: User): SessionUser {
@@ -71,6 +72,16 @@ export async function createUser(ds: DataSource, actor: SessionUser | null, inpu
 }
 
 export async function updateUser(ds: DataSource, actor: SessionUser, id: number, input: UpdateUserRequest): Promise<UserRow> {
+  try {
+    return await updateUserRow(ds, actor, id, input);
+  } finally {
+    // Passport keeps signed-in users in a short cache (active-user-cache.ts): a role change or a
+    // deactivation takes effect at this process's next request of that user.
+    forgetCachedUser(ds, id);
+  }
+}
+
+async function updateUserRow(ds: DataSource, actor: SessionUser, id: number, input: UpdateUserRequest): Promise<UserRow> {
   return ds.transaction(async (m) => {
     const user = await m.findOne(User, { where: { id }, lock: { mode: 'pessimistic_write' } });
     if (!user) throw AppError.notFound(`User ${id}`);

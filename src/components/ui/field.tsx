@@ -1,7 +1,9 @@
 import { useId, type InputHTMLAttributes, type ReactNode, type SelectHTMLAttributes } from 'react';
 
+// No focus:outline-none: the focused control keeps the app's focus outline (index.css), which a
+// keyboard user can see; a 1 px border turning copper alone is too faint.
 const control =
-  'w-full rounded-md border bg-panel px-2.5 py-1.5 text-base text-ink placeholder:text-ink-faint focus:border-copper focus:outline-none aria-[invalid=true]:border-fail';
+  'w-full rounded-md border bg-panel px-2.5 py-1.5 text-base text-ink placeholder:text-ink-faint focus:border-copper aria-[invalid=true]:border-fail';
 
 interface FieldShellProps {
   label: string;

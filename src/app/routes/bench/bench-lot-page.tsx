@@ -3,6 +3,7 @@ import { Link, useParams } from 'react-router-dom';
 import { Notice } from '../../../components/ui/notice.tsx';
 import { Loading, PageHeader, Panel } from '../../../components/ui/page.tsx';
 import { LotStatusTag } from '../../../features/bench-queue/components/bench-queue-table.tsx';
+import { useLotScreening } from '../../../features/bins/api/get-lot-screening.ts';
 import { binKeys } from '../../../features/bins/api/keys.ts';
 import { LotScreeningPanel } from '../../../features/bins/components/lot-screening-panel.tsx';
 import { ScreeningCallout } from '../../../features/bins/components/screening-callout.tsx';
@@ -28,6 +29,8 @@ export function BenchLotPage() {
   const user = useSessionUser();
   const qc = useQueryClient();
   const plan = useLotPlan(lotId);
+  // What the bench may still record once the disposition is signed (screening after MRB "100 % screen").
+  const screening = useLotScreening(lotId);
 
   // Any reading or decision changes the plan progress, the statistics, the table and the recommendation.
   const refreshLot = () => {
@@ -55,6 +58,7 @@ export function BenchLotPage() {
         (() => {
           const { lot, partType } = plan.data;
           const closed = FINAL.includes(lot.status);
+          const screenOnly = closed && screening.data?.benchWork === 'screen-only';
           return (
             <>
               <PageHeader
@@ -95,6 +99,7 @@ export function BenchLotPage() {
                       part={{ ...partType }}
                       quantity={lot.quantity}
                       closed={closed}
+                      screenOnly={screenOnly}
                       onChanged={refreshLot}
                     />
                   </Panel>

@@ -1,7 +1,9 @@
 import { Link, useParams } from 'react-router-dom';
+import { canUseArea } from '../../../../shared/api/roles.ts';
 import { Notice } from '../../../components/ui/notice.tsx';
 import { Loading, PageHeader } from '../../../components/ui/page.tsx';
 import { LotScreeningPanel } from '../../../features/bins/components/lot-screening-panel.tsx';
+import { LotKitsPanel } from '../../../features/kits/components/lot-kits-panel.tsx';
 import { useLot } from '../../../features/lots/api/get-lot.ts';
 import { DocumentsPanel } from '../../../features/lots/components/documents-panel.tsx';
 import { EsdCaution } from '../../../features/lots/components/esd-caution.tsx';
@@ -10,10 +12,11 @@ import { LotStatusTag } from '../../../features/lots/components/lots-table.tsx';
 import { LotSummary } from '../../../features/lots/components/lot-summary.tsx';
 import { TravelerPanel } from '../../../features/lots/components/traveler-panel.tsx';
 import { ApiError } from '../../../lib/api-client.ts';
+import { pairingPaths } from '../pairing/pairing-tabs.tsx';
 import { RequireArea } from '../require-area.tsx';
 import { useSessionUser } from '../use-session-user.ts';
 
-/** One lot: what was received, floor life, ESD caution, documents and the traveler label. */
+/** One lot: what was received, floor life, ESD caution, documents, screening, the kits its parts went into, and the traveler label. */
 export function LotPage() {
   const user = useSessionUser();
   const id = Number(useParams().id);
@@ -49,7 +52,13 @@ export function LotPage() {
             <div className="flex flex-col gap-5">
               <LotSummary lot={q.data} />
               <DocumentsPanel lot={q.data} canUpload={canEdit} />
-              <LotScreeningPanel lotId={q.data.id} canEdit={canEdit} containerHref={(cid) => `/bins/containers/${cid}`} />
+              <LotScreeningPanel
+                lotId={q.data.id}
+                canEdit={canEdit}
+                containerHref={(cid) => `/bins/containers/${cid}`}
+                benchHref={canUseArea(user.role, 'bench') ? `/bench/lots/${q.data.id}` : null}
+              />
+              <LotKitsPanel lotId={q.data.id} lotCode={q.data.code} kitHref={canUseArea(user.role, 'pairing') ? pairingPaths.kit : null} />
             </div>
             <div className="flex flex-col gap-5">
               <EsdCaution lot={q.data} />

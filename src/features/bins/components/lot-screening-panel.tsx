@@ -93,9 +93,21 @@ function SetupForm({ lotId, setup }: { lotId: number; setup: ScreeningSetup }) {
 
 /**
  * A lot's 100 % screening: yield per bin (counts and %), the parts outside all bins, the
- * containers made from the lot (with their labels), and how new containers are made.
+ * containers made from the lot (with their labels), and how new containers are made. After a
+ * signed MRB "100 % screen" disposition it says that screening is what the lot now needs, with a
+ * link to the lot at the bench (`benchHref`, when the role has the Bench).
  */
-export function LotScreeningPanel({ lotId, canEdit, containerHref }: { lotId: number; canEdit: boolean; containerHref: (id: number) => string }) {
+export function LotScreeningPanel({
+  lotId,
+  canEdit,
+  containerHref,
+  benchHref = null,
+}: {
+  lotId: number;
+  canEdit: boolean;
+  containerHref: (id: number) => string;
+  benchHref?: string | null;
+}) {
   const q = useLotScreening(lotId);
   const place = usePlaceScreened();
   const placeErr = place.error instanceof ApiError ? place.error : null;
@@ -115,6 +127,21 @@ export function LotScreeningPanel({ lotId, canEdit, containerHref }: { lotId: nu
           <span className="num">{s.screened.toLocaleString()}</span> parts screened, <span className="num">{s.placed.toLocaleString()}</span> in containers. Intervals are half-open [min, max),
           the last bin closed.
         </p>
+        {s.benchWork === 'screen-only' && (
+          <div data-testid="screen-after-signing">
+            <Notice tone="info" title="Signed disposition: MRB — 100 % screen">
+              Every part of this lot is to be screened into its gain bin: start a session in 100 % screening mode at the bench. Sample sessions are closed.
+              {benchHref && (
+                <>
+                  {' '}
+                  <Link to={benchHref} className="font-semibold text-ink underline">
+                    Screen at the bench
+                  </Link>
+                </>
+              )}
+            </Notice>
+          </div>
+        )}
         {s.screened > 0 && <YieldTable s={s} />}
         {s.unplaced > 0 && (
           <Notice tone="hold" title={`${s.unplaced} screened part${s.unplaced === 1 ? ' has' : 's have'} no container yet`}>

@@ -3,6 +3,7 @@ import type { BiasSourcePartType, FitForUseResponse, Spread } from '../../../../
 import { Button } from '../../../components/ui/button.tsx';
 import { SelectField, TextField } from '../../../components/ui/field.tsx';
 import { Notice, StatusTag } from '../../../components/ui/notice.tsx';
+import { ScrollBox } from '../../../components/ui/scroll-box.tsx';
 import { ApiError } from '../../../lib/api-client.ts';
 import { useRunFitForUse } from '../api/run-fit-for-use.ts';
 import { FitHistogram } from './fit-histogram.tsx';
@@ -21,7 +22,7 @@ function SpreadsTable({ r }: { r: FitForUseResponse }) {
     { name: '|Vbe| (input)', unit: 'mV', s: r.inputs.vbeV, k: 1000, d: 1 },
   ];
   return (
-    <div className="overflow-x-auto rounded-lg border border-rule bg-panel">
+    <ScrollBox label="Spread over the parts" className="rounded-lg border border-rule bg-panel">
       <table className="w-full border-collapse text-sm">
         <caption className="sr-only">Spread over the parts</caption>
         <thead className="bg-paper text-left text-xs font-bold uppercase tracking-wide text-ink-soft">
@@ -48,7 +49,7 @@ function SpreadsTable({ r }: { r: FitForUseResponse }) {
           ))}
         </tbody>
       </table>
-    </div>
+    </ScrollBox>
   );
 }
 

@@ -15,6 +15,7 @@ export function useCancelKit() {
       qc.setQueryData(kitKeys.detail(kit.id), kit);
       void qc.invalidateQueries({ queryKey: kitKeys.lists() });
       void qc.invalidateQueries({ queryKey: kitKeys.stock() });
+      void qc.invalidateQueries({ queryKey: kitKeys.ofLots() });
     },
   });
 }

@@ -16,6 +16,7 @@ export function useCreateKit() {
       qc.setQueryData(kitKeys.detail(kit.id), kit);
       void qc.invalidateQueries({ queryKey: kitKeys.lists() });
       void qc.invalidateQueries({ queryKey: kitKeys.stock() });
+      void qc.invalidateQueries({ queryKey: kitKeys.ofLots() });
     },
   });
 }

@@ -15,6 +15,7 @@ export function usePullKitPart() {
     onSuccess: (r) => {
       qc.setQueryData(kitKeys.detail(r.kit.id), r.kit);
       void qc.invalidateQueries({ queryKey: kitKeys.lists() });
+      void qc.invalidateQueries({ queryKey: kitKeys.ofLots() });
     },
   });
 }

@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { Link } from 'react-router-dom';
 import { KIT_OPEN_STATUSES, type KitDetail } from '../../../../shared/api/pairing.ts';
 import { nextToPull, pullProgress } from '../../../../shared/domain/kitting/index.ts';
@@ -6,6 +6,7 @@ import { Button } from '../../../components/ui/button.tsx';
 import { ConfirmDialog } from '../../../components/ui/confirm-dialog.tsx';
 import { Notice } from '../../../components/ui/notice.tsx';
 import { Panel } from '../../../components/ui/page.tsx';
+import { ScrollBox } from '../../../components/ui/scroll-box.tsx';
 import { useCancelKit } from '../api/cancel-kit.ts';
 import { kitLabelUrl, kitPickListUrl } from '../api/get-kit.ts';
 import { fixed, formatDateTime, formatTime, modeText, setsText } from './format.ts';
@@ -40,6 +41,14 @@ export function KitDetailView({ kit, canEdit, lotHref }: { kit: KitDetail; canEd
   const progress = pullProgress(kit.pickList);
   const next = open ? nextToPull(kit.pickList) : null;
   const esd = kit.partTypes.map((p) => p.esdHbmClass).filter(Boolean);
+  // The last pull removes the scan field that had the focus: the focus moves to the news that the
+  // kit is complete (its next step, the kit label, is the next Tab), not to the page.
+  const completeRef = useRef<HTMLDivElement>(null);
+  const wasOpen = useRef(open);
+  useEffect(() => {
+    if (wasOpen.current && kit.status === 'pulled') completeRef.current?.focus();
+    wasOpen.current = open;
+  }, [open, kit.status]);
 
   return (
     <div className="flex flex-col gap-5">
@@ -68,9 +77,14 @@ export function KitDetailView({ kit, canEdit, lotHref }: { kit: KitDetail; canEd
       </div>
 
       {kit.status === 'pulled' && (
-        <Notice tone="pass" title="Kit complete">
-          Every part is pulled{kit.completedAt ? ` (${formatDateTime(kit.completedAt)})` : ''}. Put the kit label on the bag.
-        </Notice>
+        <div ref={completeRef} tabIndex={-1} className="rounded-md" data-testid="kit-complete">
+          <Notice tone="pass" title="Kit complete">
+            Every part is pulled{kit.completedAt ? ` (${formatDateTime(kit.completedAt)})` : ''}. Put the kit label on the bag:{' '}
+            <a className="font-semibold text-ink underline" href={kitLabelUrl(kit.id)} target="_blank" rel="noreferrer">
+              Print the kit label
+            </a>
+          </Notice>
+        </div>
       )}
       {kit.status === 'expired' && (
         <Notice tone="hold" title="Reservation expired">
@@ -94,7 +108,7 @@ export function KitDetailView({ kit, canEdit, lotHref }: { kit: KitDetail; canEd
           <PullScanField kit={kit} />
           {next && (
             <p className="mt-2 text-sm text-ink-soft" data-testid="next-pick">
-              Next: <span className="font-semibold text-ink">{next.location}</span> · <span className="font-mono">{next.containerCode}</span> position <span className="font-semibold text-ink">{next.position}</span>
+              Next: <span className="font-semibold text-ink">{next.location}</span> · <span className="whitespace-nowrap font-mono">{next.containerCode}</span> position <span className="font-semibold text-ink">{next.position}</span>
             </p>
           )}
         </Panel>
@@ -107,8 +121,9 @@ export function KitDetailView({ kit, canEdit, lotHref }: { kit: KitDetail; canEd
         {kit.pickList.length === 0 ? (
           <p className="text-sm text-ink-soft">This kit holds no parts.</p>
         ) : (
-          <div className="overflow-x-auto rounded-lg border border-rule bg-panel">
-            <table className="w-full border-collapse text-sm">
+          <ScrollBox label="Pick list" className="rounded-lg border border-rule bg-panel">
+            {/* At least 52rem wide: on a phone the list scrolls sideways instead of breaking codes over lines. */}
+            <table className="w-full min-w-[52rem] border-collapse text-sm">
               <caption className="sr-only">Pick list</caption>
               <thead className="bg-paper text-left text-xs font-bold uppercase tracking-wide text-ink-soft">
                 <tr>
@@ -125,14 +140,14 @@ export function KitDetailView({ kit, canEdit, lotHref }: { kit: KitDetail; canEd
                   return (
                     <tr key={`${p.containerCode}/${p.position}/${p.measurementId}`} className={`border-t border-rule/70 ${isNext ? 'bg-copper-light/60' : p.pulledAt ? 'text-ink-soft' : ''}`} aria-current={isNext ? 'step' : undefined}>
                       <td className="num px-3 py-1.5 text-right">{i + 1}</td>
-                      <td className="px-3 py-1.5 font-semibold">{p.location}</td>
-                      <td className="px-3 py-1.5 font-mono">{p.containerCode}</td>
+                      <td className="min-w-[10rem] px-3 py-1.5 font-semibold">{p.location}</td>
+                      <td className="whitespace-nowrap px-3 py-1.5 font-mono">{p.containerCode}</td>
                       <td className="num px-3 py-1.5 text-right text-base font-bold">{p.position}</td>
                       <td className="num px-3 py-1.5 text-right">{p.setIndex}</td>
                       <td className="px-3 py-1.5">
                         {p.partNumber} <span className="text-xs text-ink-faint">{p.polarity}</span>
                       </td>
-                      <td className="px-3 py-1.5">
+                      <td className="whitespace-nowrap px-3 py-1.5">
                         {lotHref ? (
                           <Link to={lotHref(p.lotId)} className="font-mono underline-offset-2 hover:underline">
                             {p.lotCode}
@@ -160,7 +175,7 @@ export function KitDetailView({ kit, canEdit, lotHref }: { kit: KitDetail; canEd
                 })}
               </tbody>
             </table>
-          </div>
+          </ScrollBox>
         )}
       </section>
 
@@ -176,7 +191,14 @@ export function KitDetailView({ kit, canEdit, lotHref }: { kit: KitDetail; canEd
         <ul className="flex flex-col gap-1 text-sm" aria-label="Source lots">
           {kit.sourceLots.map((l) => (
             <li key={l.lotId}>
-              <span className="font-mono font-semibold">{l.lotCode}</span> · supplier lot <span className="font-mono">{l.supplierLot ?? '—'}</span> · {l.supplierName} · {l.partNumber} ·{' '}
+              {lotHref ? (
+                <Link to={lotHref(l.lotId)} className="font-mono font-semibold underline underline-offset-2">
+                  {l.lotCode}
+                </Link>
+              ) : (
+                <span className="font-mono font-semibold">{l.lotCode}</span>
+              )}{' '}
+              · supplier lot <span className="font-mono">{l.supplierLot ?? '—'}</span> · {l.supplierName} · {l.partNumber} ·{' '}
               {l.parts} part{l.parts === 1 ? '' : 's'}
             </li>
           ))}

@@ -1,13 +1,16 @@
+import type { Ref } from 'react';
 import type { KitPartLine, KitPlan, KitSetView } from '../../../../shared/api/pairing.ts';
 import { Notice } from '../../../components/ui/notice.tsx';
+import { ScrollBox } from '../../../components/ui/scroll-box.tsx';
 import { fixed, modeText, setsText } from './format.ts';
 import { MismatchFootnote, MismatchMeaningText } from './mismatch-meaning.tsx';
 
 /** The sets of a plan or kit with their spreads and what they mean in a circuit. */
 export function SetsTable({ sets, caption }: { sets: KitSetView[]; caption: string }) {
   return (
-    <div className="overflow-x-auto rounded-lg border border-rule bg-panel">
-      <table className="w-full border-collapse text-sm">
+    <ScrollBox label={caption} className="rounded-lg border border-rule bg-panel">
+      {/* At least 44rem wide: on a phone the sets scroll sideways instead of breaking codes over lines. */}
+      <table className="w-full min-w-[44rem] border-collapse text-sm">
         <caption className="sr-only">{caption}</caption>
         <thead className="bg-paper text-left text-xs font-bold uppercase tracking-wide text-ink-soft">
           <tr>
@@ -36,7 +39,7 @@ export function SetsTable({ sets, caption }: { sets: KitSetView[]; caption: stri
                 <ul className="flex flex-col gap-0.5">
                   {s.parts.map((p) => (
                     <li key={`${p.containerCode}/${p.position}/${p.measurementId}`} className={p.releasedAt ? 'text-ink-faint line-through' : ''}>
-                      <span className="font-mono">
+                      <span className="whitespace-nowrap font-mono">
                         {p.containerCode}/{p.position}
                       </span>{' '}
                       <span className="num text-ink-soft">
@@ -55,7 +58,7 @@ export function SetsTable({ sets, caption }: { sets: KitSetView[]; caption: stri
           ))}
         </tbody>
       </table>
-    </div>
+    </ScrollBox>
   );
 }
 
@@ -86,13 +89,16 @@ export function PlannedPickList({ lines }: { lines: KitPartLine[] }) {
   );
 }
 
-/** A plan: how many sets the stock makes, the planned sets with their meaning, and where to pull. */
-export function KitPlanView({ plan }: { plan: KitPlan }) {
+/**
+ * A plan: how many sets the stock makes, the planned sets with their meaning, and where to pull.
+ * `resultRef` gets the headline ("6 pairs possible"), which can take the focus once planned.
+ */
+export function KitPlanView({ plan, resultRef }: { plan: KitPlan; resultRef?: Ref<HTMLParagraphElement> }) {
   const short = plan.setsPossible < plan.setsWanted;
   return (
     <section aria-label="Plan" className="flex flex-col gap-3">
       <div className="flex flex-wrap items-baseline gap-x-6 gap-y-1">
-        <p className="text-2xl font-bold text-ink" data-testid="sets-possible">
+        <p ref={resultRef} tabIndex={-1} className="text-2xl font-bold text-ink" data-testid="sets-possible">
           {setsText(plan.setsPossible, plan.setSize)} possible
         </p>
         <p className="text-sm text-ink-soft">

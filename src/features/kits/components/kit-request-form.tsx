@@ -1,4 +1,4 @@
-import { useState } from 'react';
+import { useEffect, useRef, useState } from 'react';
 import { HFE_TOLERANCE_DEFINITION, MATCH_MODE_LABELS, type KitDetail, type KitPlanRequest, type MatchMode, type PairingStockRow, type SetSize } from '../../../../shared/api/pairing.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { SelectField, TextField } from '../../../components/ui/field.tsx';
@@ -40,6 +40,12 @@ export function KitRequestForm({ stock, onReserved }: { stock: PairingStockRow[]
   const [v, setV] = useState<Values>({ partTypeId: '', complementPartTypeId: '', mode: 'same', setSize: '2', setsWanted: '4', hfeTolerancePct: '', vbeToleranceMv: '', holdMinutes: '240', note: '' });
   const plan = usePlanKit();
   const reserve = useCreateKit();
+  // A new plan takes the focus (its headline), so it is read out and Tab goes on to reserving; the
+  // Plan button, disabled while busy, would otherwise drop the focus to the page.
+  const resultRef = useRef<HTMLParagraphElement>(null);
+  useEffect(() => {
+    if (plan.data) resultRef.current?.focus();
+  }, [plan.data]);
   const error = (reserve.error ?? plan.error) as Error | null;
   const apiErr = error instanceof ApiError ? error : null;
   const fe = (f: string) => apiErr?.fieldError(f);
@@ -168,7 +174,7 @@ export function KitRequestForm({ stock, onReserved }: { stock: PairingStockRow[]
           {apiErr.problem.detail}
         </Notice>
       )}
-      {p && <KitPlanView plan={p} />}
+      {p && <KitPlanView plan={p} resultRef={resultRef} />}
       {reservable && (
         <form
           aria-label="Reserve the plan"

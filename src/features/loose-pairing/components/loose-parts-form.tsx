@@ -4,6 +4,7 @@ import type { Polarity } from '../../../../shared/api/catalog.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { SelectField, TextField } from '../../../components/ui/field.tsx';
 import { Notice } from '../../../components/ui/notice.tsx';
+import { ScrollBox } from '../../../components/ui/scroll-box.tsx';
 import { ApiError } from '../../../lib/api-client.ts';
 import { usePreviewPairing } from '../api/preview-pairing.ts';
 
@@ -58,7 +59,7 @@ export function LoosePartsForm() {
           });
         }}
       >
-        <div className="max-w-2xl overflow-x-auto rounded-lg border border-rule bg-panel">
+        <ScrollBox label="Hand-measured parts" className="max-w-2xl rounded-lg border border-rule bg-panel">
           <table className="w-full border-collapse text-sm">
             <caption className="sr-only">Hand-measured parts</caption>
             <thead className="bg-paper text-left text-xs font-bold uppercase tracking-wide text-ink-soft">
@@ -139,7 +140,7 @@ export function LoosePartsForm() {
               })}
             </tbody>
           </table>
-        </div>
+        </ScrollBox>
         <div>
           <Button
             type="button"
@@ -190,7 +191,7 @@ export function LoosePartsForm() {
             {result.sets.length} {Number(opts.setSize) === 2 ? (result.sets.length === 1 ? 'pair' : 'pairs') : result.sets.length === 1 ? 'quad' : 'quads'} within tolerance
           </p>
           {result.sets.length > 0 && (
-            <div className="overflow-x-auto rounded-lg border border-rule bg-panel">
+            <ScrollBox label="Matched sets" className="rounded-lg border border-rule bg-panel">
               <table className="w-full border-collapse text-sm">
                 <caption className="sr-only">Matched sets</caption>
                 <thead className="bg-paper text-left text-xs font-bold uppercase tracking-wide text-ink-soft">
@@ -218,7 +219,7 @@ export function LoosePartsForm() {
                   ))}
                 </tbody>
               </table>
-            </div>
+            </ScrollBox>
           )}
           <p className="text-sm text-ink-soft">{result.unmatched.length ? `Left over: ${result.unmatched.map(label).join(', ')}.` : 'Every part is in a set.'}</p>
           <p className="text-xs text-ink-faint">

@@ -6,6 +6,7 @@ import type { CurrentUnit, ImportMapping, ImportProgress, ImportResult, ImportUn
 import { Button } from '../../../components/ui/button.tsx';
 import { SelectField } from '../../../components/ui/field.tsx';
 import { Notice } from '../../../components/ui/notice.tsx';
+import { ScrollBox } from '../../../components/ui/scroll-box.tsx';
 import { ApiError } from '../../../lib/api-client.ts';
 import { useInstrumentMapping } from '../api/get-instrument-mapping.ts';
 import { importMeasurements } from '../api/import-measurements.ts';
@@ -136,7 +137,7 @@ export function ImportPanel({ lotId, session, onImported }: { lotId: number; ses
 
       {preview && (
         <>
-          <div className="overflow-x-auto rounded-md border border-rule">
+          <ScrollBox label="Preview of the first rows" className="rounded-md border border-rule">
             <table className="w-full border-collapse text-sm" aria-label="Preview of the first rows">
               <caption className="bg-paper px-2 py-1 text-left text-xs text-ink-soft">
                 {preview.file.name} · {(preview.file.size / 1024).toFixed(0)} kB · first {preview.rows.length} rows
@@ -163,7 +164,7 @@ export function ImportPanel({ lotId, session, onImported }: { lotId: number; ses
                 ))}
               </tbody>
             </table>
-          </div>
+          </ScrollBox>
           <div className="grid gap-3 sm:grid-cols-5">
             {FIELDS.map((f) => (
               <SelectField

@@ -16,19 +16,22 @@ export function MeasurementCapture({
   part,
   quantity,
   closed,
+  screenOnly = false,
   onChanged,
 }: {
   lotId: number;
   userId: number;
   part: PartForEntry;
   quantity: number;
-  /** The disposition is signed: no more readings. */
+  /** The disposition is signed: no more readings (unless `screenOnly`). */
   closed: boolean;
+  /** The signed disposition is MRB "100 % screen": screening sessions only. */
+  screenOnly?: boolean;
   onChanged: () => void;
 }) {
   const [tab, setTab] = useState<'grid' | 'import'>('grid');
   const sessions = useSessions(lotId);
-  if (closed) return <Notice tone="info" title="Measurements are closed">The disposition of this lot is signed; its readings can be read and exported but not changed.</Notice>;
+  if (closed && !screenOnly) return <Notice tone="info" title="Measurements are closed">The disposition of this lot is signed; its readings can be read and exported but not changed.</Notice>;
   if (sessions.isLoading) return <Loading label="Loading sessions…" />;
   if (sessions.isError) return <Notice tone="fail" title="Sessions could not be loaded">{(sessions.error as Error).message}</Notice>;
   const data = sessions.data;
@@ -39,7 +42,12 @@ export function MeasurementCapture({
   };
   return (
     <div className="flex flex-col gap-4">
-      <SessionPanel lotId={lotId} session={open} onChanged={changed} />
+      {screenOnly && (
+        <Notice tone="info" title="100 % screening after the signed disposition">
+          The signed MRB disposition of this lot is "100 % screen": screen every part into its gain bin in a 100 % screening session. The sample the disposition rests on is closed.
+        </Notice>
+      )}
+      <SessionPanel lotId={lotId} session={open} onChanged={changed} screenOnly={screenOnly} />
       {open && (
         <>
           <div role="tablist" aria-label="How to enter readings" className="flex gap-1 border-b border-rule">

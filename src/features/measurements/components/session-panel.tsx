@@ -9,9 +9,14 @@ import { useStartSession } from '../api/start-session.ts';
 
 const LAST_INSTRUMENT = 'binwright.bench.instrument';
 
-/** Starts a measurement session (instrument, ambient temperature, mode) or shows the open one. */
-export function SessionPanel({ lotId, session, onChanged }: { lotId: number; session: SessionRow | null; onChanged: () => void }) {
-  const [form, setForm] = useState({ instrument: localStorage.getItem(LAST_INSTRUMENT) ?? '', ambientC: '23', mode: 'sample' as SessionMode });
+/**
+ * Starts a measurement session (instrument, ambient temperature, mode) or shows the open one.
+ * `screenOnly`: the lot's signed disposition is MRB "100 % screen", so only a screening session
+ * can start (the server refuses a sample session too).
+ */
+export function SessionPanel({ lotId, session, onChanged, screenOnly = false }: { lotId: number; session: SessionRow | null; onChanged: () => void; screenOnly?: boolean }) {
+  const [form, setForm] = useState({ instrument: localStorage.getItem(LAST_INSTRUMENT) ?? '', ambientC: '23', mode: (screenOnly ? 'screen' : 'sample') as SessionMode });
+  const mode: SessionMode = screenOnly ? 'screen' : form.mode;
   const start = useStartSession(lotId);
   const close = useCloseSession(lotId);
   const err = start.error instanceof ApiError ? start.error : null;
@@ -33,7 +38,7 @@ export function SessionPanel({ lotId, session, onChanged }: { lotId: number; ses
   const submit = (e: FormEvent) => {
     e.preventDefault();
     localStorage.setItem(LAST_INSTRUMENT, form.instrument);
-    start.mutate({ instrument: form.instrument, ambientC: Number(form.ambientC), mode: form.mode }, { onSuccess: onChanged });
+    start.mutate({ instrument: form.instrument, ambientC: Number(form.ambientC), mode }, { onSuccess: onChanged });
   };
   return (
     <form onSubmit={submit} noValidate aria-label="Start a measurement session" className="grid gap-3 sm:grid-cols-[2fr_1fr_1fr_auto] sm:items-end">
@@ -52,11 +57,12 @@ export function SessionPanel({ lotId, session, onChanged }: { lotId: number; ses
       />
       <SelectField
         label="Mode"
-        value={form.mode}
+        value={mode}
         onChange={(e) => setForm({ ...form, mode: e.target.value as SessionMode })}
         error={err?.fieldError('mode')}
+        hint={screenOnly ? 'Sampling is closed' : undefined}
         options={[
-          { value: 'sample', label: 'Sample' },
+          ...(screenOnly ? [] : [{ value: 'sample', label: 'Sample' }]),
           { value: 'screen', label: '100 % screening' },
         ]}
       />

@@ -3,6 +3,7 @@ import { SCHEME_LOCKED_CODE, type BinSchemeVersionRow } from '../../../../shared
 import type { PartHfeLimits } from '../../../../shared/domain/binning/index.ts';
 import { Button } from '../../../components/ui/button.tsx';
 import { Notice } from '../../../components/ui/notice.tsx';
+import { ScrollBox } from '../../../components/ui/scroll-box.tsx';
 import { ApiError } from '../../../lib/api-client.ts';
 import { useCreateBinScheme } from '../api/create-bin-scheme.ts';
 import { useUpdateBinScheme } from '../api/update-bin-scheme.ts';
@@ -110,8 +111,7 @@ export function BinSchemeEditor({ partTypeId, limits, base, baseIsCurrent, onSav
 
       <BinStrip bins={draftsToBins(drafts)} limits={limits} />
 
-      {/* relative: the sr-only labels of the inputs are clipped by this box instead of widening the page */}
-      <div className="relative overflow-x-auto rounded-lg border border-rule">
+      <ScrollBox label="Bins of the scheme being edited" className="rounded-lg border border-rule">
         <table className="w-full border-collapse text-sm">
           <caption className="sr-only">Bins of the scheme being edited</caption>
           <thead className="bg-paper text-left text-xs font-bold uppercase tracking-wide text-ink-soft">
@@ -186,7 +186,7 @@ export function BinSchemeEditor({ partTypeId, limits, base, baseIsCurrent, onSav
             })}
           </tbody>
         </table>
-      </div>
+      </ScrollBox>
 
       <p className={`text-sm font-semibold ${previewCount ? 'text-fail' : 'text-pass'}`} role="status" data-testid="scheme-preview">
         {previewCount

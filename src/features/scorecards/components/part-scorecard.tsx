@@ -2,6 +2,7 @@ import type { ReactNode } from 'react';
 import type { PartScorecard, ScorecardLot } from '../../../../shared/api/supplier-quality.ts';
 import { StatusTag } from '../../../components/ui/notice.tsx';
 import { EmptyState, Panel } from '../../../components/ui/page.tsx';
+import { ScrollBox } from '../../../components/ui/scroll-box.tsx';
 import { AcceptanceChart } from './acceptance-chart.tsx';
 import { ControlChart } from './control-chart.tsx';
 import { DistributionChart } from './distribution-chart.tsx';
@@ -37,8 +38,9 @@ export function PartScorecardView({ part, lotActions }: { part: PartScorecard; l
         </Panel>
       </div>
       <Panel title="Lots">
-        <div className="overflow-x-auto">
-          <table className="w-full text-sm">
+        <ScrollBox label={`Lots of ${p.partNumber}`}>
+          {/* At least 40rem wide: on a phone the table scrolls sideways instead of breaking lot codes over lines. */}
+          <table className="w-full min-w-[40rem] text-sm">
             <caption className="sr-only">Lots of {p.partNumber} in the period</caption>
             <thead className="text-left text-xs uppercase tracking-wide text-ink-soft">
               <tr>
@@ -52,7 +54,7 @@ export function PartScorecardView({ part, lotActions }: { part: PartScorecard; l
             <tbody>
               {part.lots.map((l) => (
                 <tr key={l.lotId} className="border-t border-rule/70">
-                  <td className="num py-1.5 pr-3 font-semibold">{l.code}</td>
+                  <td className="num whitespace-nowrap py-1.5 pr-3 font-semibold">{l.code}</td>
                   <td className="py-1.5 pr-3">{new Date(l.receivedAt).toLocaleDateString()}</td>
                   <td className="num py-1.5 pr-3">{l.dateCode ?? '—'}</td>
                   <td className="py-1.5 pr-3">
@@ -73,7 +75,7 @@ export function PartScorecardView({ part, lotActions }: { part: PartScorecard; l
               ))}
             </tbody>
           </table>
-        </div>
+        </ScrollBox>
       </Panel>
     </section>
   );
