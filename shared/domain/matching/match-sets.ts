@@ -28,6 +28,7 @@ export function matchSets(parts: readonly MatchPart[], options: MatchOptions): M
       ? [parts.map((_, i) => i)]
       : (['NPN', 'PNP'] as Polarity[]).map((pol) => parts.flatMap((p, i) => (p.polarity === pol ? [i] : [])));
 
+  const hfeOf = Float64Array.from(parts, (p) => p.hfe);
   const sets: { members: number[]; first: number; set: MatchedSet }[] = [];
   let optimal = true;
   let upperBound = 0;
@@ -35,7 +36,7 @@ export function matchSets(parts: readonly MatchPart[], options: MatchOptions): M
   for (const group of groups) {
     if (group.length < setSize) continue;
     // Items sorted by hFE (ties by input order), as the window scans need.
-    const order = group.slice().sort((a, b) => (parts[a] as MatchPart).hfe - (parts[b] as MatchPart).hfe || a - b);
+    const order = group.slice().sort((a, b) => (hfeOf[a] as number) - (hfeOf[b] as number) || a - b);
     const vbeOf = (i: number): number =>
       mode === 'complementary' ? Math.abs((parts[i] as MatchPart).vbeMv) : (parts[i] as MatchPart).vbeMv;
     const h = Float64Array.from(order, (i) => (parts[i] as MatchPart).hfe);
@@ -84,6 +85,21 @@ export function matchSets(parts: readonly MatchPart[], options: MatchOptions): M
 
 function describeSet(parts: readonly MatchPart[], members: number[], options: MatchOptions): MatchedSet {
   const complementary = options.mode === 'complementary';
+  if (members.length === 2 && !complementary) {
+    // A same-polarity pair: the same result as the general path below, without its sorting.
+    const [i, j] = members as [number, number];
+    const p = parts[i] as MatchPart;
+    const q = parts[j] as MatchPart;
+    const pFirst = p.hfe < q.hfe || (p.hfe === q.hfe && i < j);
+    const hs = hfeSpreadPct(Math.min(p.hfe, q.hfe), Math.max(p.hfe, q.hfe));
+    const vs = Math.max(p.vbeMv, q.vbeMv) - Math.min(p.vbeMv, q.vbeMv);
+    return {
+      partIds: pFirst ? [p.id, q.id] : [q.id, p.id],
+      hfeSpreadPct: hs,
+      vbeSpreadMv: vs,
+      mismatch: setMismatch(hs, vs, options.hfeTolerancePct, options.vbeToleranceMv),
+    };
+  }
   const ordered = complementary
     ? members.slice().sort((a, b) => ((parts[a] as MatchPart).polarity === 'NPN' ? -1 : 1) - ((parts[b] as MatchPart).polarity === 'NPN' ? -1 : 1))
     : members.slice().sort((a, b) => (parts[a] as MatchPart).hfe - (parts[b] as MatchPart).hfe || a - b);
