@@ -176,8 +176,8 @@ class BlossomSolver {
   private liveTrees = 0;
   private readonly visitMark: Int32Array;
   private visit = 0;
-  private readonly leafStack: number[] = [];
-  private readonly leafScratch: number[] = [];
+  private readonly leafStack: Int32Array;
+  private readonly leafBuf: Int32Array;
 
   constructor(
     graph: BlossomGraph,
@@ -245,6 +245,9 @@ class BlossomSolver {
     for (let v = 0; v < n; v++) this.inBlossom[v] = v;
     this.inBlossomGen = new Int32Array(n);
     this.blossomGen = new Int32Array(2 * n);
+    // Every blossom node is on the stack at most once: 2n bounds it.
+    this.leafStack = new Int32Array(2 * n);
+    this.leafBuf = new Int32Array(n);
     this.blossomParent = new Int32Array(2 * n).fill(-1);
     this.blossomChilds = new Array<number[] | null>(2 * n).fill(null);
     this.blossomBase = new Int32Array(2 * n).fill(-1);
@@ -323,7 +326,9 @@ class BlossomSolver {
     const { dualVar, timeRef } = this;
     const l = this.label[b];
     const now = this.now;
-    for (const v of this.scratchLeaves(b)) {
+    const { leafBuf } = this;
+    for (let i = 0, c = this.leavesInto(b); i < c; i++) {
+      const v = leafBuf[i] as number;
       const moved = now - (timeRef[v] as number);
       if (l === 1) dualVar[v] = (dualVar[v] as number) - moved;
       else if (l === 2) dualVar[v] = (dualVar[v] as number) + moved;
@@ -418,12 +423,27 @@ class BlossomSolver {
 
   /** Appends the leaves (vertices) of blossom b to out, depth first in child order. */
   /**
-   * A reused array for leaves that are read at once (before anything else asks for leaves into it).
+   * Writes the leaves of blossom b into leafBuf (in the order of leaves()) and returns how many.
+   * For loops that read them at once, before anything else asks for leaves: typed buffers, so the
+   * 1–2 million leaf visits of a large matching allocate nothing (emptying a JS array with
+   * `length = 0` gives its storage back, and refilling it reallocates).
    */
-  private scratchLeaves(b: number): number[] {
-    const out = this.leafScratch;
-    out.length = 0;
-    return this.leaves(b, out);
+  private leavesInto(b: number): number {
+    const { leafBuf, leafStack, blossomChilds } = this;
+    const n = this.n;
+    let count = 0;
+    let sp = 0;
+    leafStack[sp++] = b;
+    while (sp > 0) {
+      const x = leafStack[--sp] as number;
+      if (x < n) {
+        leafBuf[count++] = x;
+        continue;
+      }
+      const ch = blossomChilds[x] as number[];
+      for (let c = ch.length - 1; c >= 0; c--) leafStack[sp++] = ch[c] as number;
+    }
+    return count;
   }
 
   private leaves(b: number, out: number[]): number[] {
@@ -431,9 +451,7 @@ class BlossomSolver {
       out.push(b);
       return out;
     }
-    const stack = this.leafStack;
-    stack.length = 0;
-    stack.push(b);
+    const stack = [b];
     while (stack.length > 0) {
       const x = stack.pop() as number;
       if (x < this.n) {
@@ -480,10 +498,11 @@ class BlossomSolver {
       this.timeRef[b] = this.now;
       if (t === 1) this.becameOuter(b);
     } else {
-      // becameOuter asks for no leaves, so the reused array stays intact through both loops.
-      const lv = this.scratchLeaves(b);
-      for (const v of lv) this.timeRef[v] = this.now;
-      if (t === 1) for (const v of lv) this.becameOuter(v);
+      // becameOuter asks for no leaves, so leafBuf stays intact through both loops.
+      const { leafBuf } = this;
+      const c = this.leavesInto(b);
+      for (let i = 0; i < c; i++) this.timeRef[leafBuf[i] as number] = this.now;
+      if (t === 1) for (let i = 0; i < c; i++) this.becameOuter(leafBuf[i] as number);
     }
     if (t !== 1) {
       if (b >= this.n) this.events.set(this.now + (this.dualVar[b] as number), 8 * b + KIND_BLOSSOM);
