@@ -45,6 +45,7 @@ import { MeasurementSession } from '../server/modules/measurements/measurement-s
 import { Supplier } from '../server/modules/suppliers/supplier.entity.ts';
 import { User } from '../server/modules/users/user.entity.ts';
 import { startAppProcess, type AppProcess } from './lib/app-process.ts';
+import { inventedBenchNpn } from './lib/bench-fixtures.ts';
 import { clusterEnv, startCluster } from './lib/pg-cluster.ts';
 
 const PASSWORD = 'bench-load-password';
@@ -175,29 +176,7 @@ async function makeFixture(ds: DataSource, connections: number, listLots: number
     ds.getRepository(Supplier).create({ code: `LOAD-${tag}`.slice(0, 20), name: 'Load Distributor (invented)', approval: 'approved', notes: null }),
   );
   const part = await ds.getRepository(PartType).save(
-    ds.getRepository(PartType).create({
-      partNumber: `HPA-LOAD-${tag}`,
-      description: 'Invented small-signal NPN for the load bench',
-      polarity: 'NPN',
-      packageName: 'TO-92',
-      hfeIcMa: 2,
-      hfeVceV: 5,
-      vbeIcMa: 2,
-      hfeMin: 110,
-      hfeMax: 320,
-      vbeMinMv: 580,
-      vbeMaxMv: 700,
-      vbeTcMvPerC: -2,
-      hfeTcPctPerC: 0.5,
-      msl: 'not-classified',
-      esdHbmClass: '1B',
-      samplingMethod: 'attribute',
-      inspectionLevel: 'II',
-      aql: 1.0,
-      matchHfePct: 5,
-      matchVbeMv: 2,
-      active: true,
-    }),
+    ds.getRepository(PartType).create(inventedBenchNpn(`HPA-LOAD-${tag}`, 'Invented small-signal NPN for the load bench')),
   );
   const f = { supplier, part, writers, readers };
   // The lots list shows a realistic first page out of a few hundred lots.

@@ -51,6 +51,7 @@ import { benchBinLabels } from './bench-labels.ts';
 import { benchLoad, type PhaseFigures, type WriteFigures } from './bench-load.ts';
 import { benchMatching } from './bench-matching.ts';
 import { median, num, replaceBenchSection, reportMarkdown, reportText, rowsPerSecond, type BenchReport, type ReportRow, type ReportTable } from './lib/bench-report.ts';
+import { inventedBenchNpn } from './lib/bench-fixtures.ts';
 import { clusterEnv, startCluster, type RunningCluster } from './lib/pg-cluster.ts';
 
 const STANDARD_ROWS = 100_000;
@@ -325,29 +326,7 @@ async function main() {
     );
     const supplier = await db.getRepository(Supplier).save(db.getRepository(Supplier).create({ code: 'BENCH', name: 'Bench Distributor (invented)', approval: 'approved', notes: null }));
     const partType = await db.getRepository(PartType).save(
-      db.getRepository(PartType).create({
-        partNumber: 'HPA-BENCH-NPN',
-        description: 'Invented small-signal NPN for the benchmark',
-        polarity: 'NPN',
-        packageName: 'TO-92',
-        hfeIcMa: 2,
-        hfeVceV: 5,
-        vbeIcMa: 2,
-        hfeMin: 110,
-        hfeMax: 320,
-        vbeMinMv: 580,
-        vbeMaxMv: 700,
-        vbeTcMvPerC: -2,
-        hfeTcPctPerC: 0.5,
-        msl: 'not-classified',
-        esdHbmClass: '1B',
-        samplingMethod: 'attribute',
-        inspectionLevel: 'II',
-        aql: 1.0,
-        matchHfePct: 5,
-        matchVbeMv: 2,
-        active: true,
-      }),
+      db.getRepository(PartType).create(inventedBenchNpn('HPA-BENCH-NPN', 'Invented small-signal NPN for the benchmark')),
     );
     const scheme = await db.getRepository(GainBinSchemeVersion).save(db.getRepository(GainBinSchemeVersion).create({ partTypeId: partType.id, version: 1, note: null, lockedAt: null, createdBy: null }));
     await db.getRepository(GainBinRow).save(

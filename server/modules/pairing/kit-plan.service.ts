@@ -4,7 +4,7 @@ import type { KitPartLine, KitPartTypeInfo, KitPlan, KitPlanRequest, KitSetView,
 import { orderPickList } from '../../../shared/domain/kitting/index.ts';
 import { MatchingInputError, matchSets, type MatchPart } from '../../../shared/domain/matching/index.ts';
 import { AppError } from '../../http/app-error.ts';
-import { PART_TYPE_INFO_SELECT, setPartOrder, toPartTypeInfo, type PartTypeInfoSqlRow } from './kit-view.ts';
+import { PART_TYPE_INFO_SELECT, setPartOrder, toPartTypeInfo, type PartPlaceSqlRow, type PartTypeInfoSqlRow } from './kit-view.ts';
 import { meaningOfSet } from './set-meaning.ts';
 import { releaseExpiredKits } from './kit-expiry.ts';
 
@@ -78,23 +78,8 @@ export interface StockPart {
   vbeMv25: number;
 }
 
-interface StockSqlRow {
+interface StockSqlRow extends PartPlaceSqlRow {
   position_id: string;
-  container_id: number;
-  container_code: string;
-  position: number;
-  location: string;
-  bin_code: string | null;
-  measurement_id: string;
-  lot_id: number;
-  lot_code: string;
-  supplier_lot: string | null;
-  supplier_name: string;
-  part_type_id: number;
-  part_number: string;
-  polarity: Polarity;
-  hfe_25: number;
-  vbe_mv_25: number;
 }
 
 /**

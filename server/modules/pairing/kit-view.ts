@@ -120,10 +120,8 @@ export const KIT_PART_SELECT = `
     JOIN measurement me ON me.id = kp.measurement_id
     LEFT JOIN app_user pu ON pu.id = kp.pulled_by`;
 
-export interface KitPartSqlRow {
-  id: string;
-  kit_set_id: number;
-  set_index: number;
+/** Where a part sits and what it is: the columns a stock row and a kit part row share. */
+export interface PartPlaceSqlRow {
   container_id: number;
   container_code: string;
   position: number;
@@ -139,6 +137,12 @@ export interface KitPartSqlRow {
   polarity: Polarity;
   hfe_25: number;
   vbe_mv_25: number;
+}
+
+export interface KitPartSqlRow extends PartPlaceSqlRow {
+  id: string;
+  kit_set_id: number;
+  set_index: number;
   pulled_at: Date | null;
   pulled_by_name: string | null;
   released_at: Date | null;
