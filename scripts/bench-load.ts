@@ -30,7 +30,6 @@
  */
 import 'reflect-metadata';
 import fs from 'node:fs';
-import http from 'node:http';
 import os from 'node:os';
 import path from 'node:path';
 import { pathToFileURL } from 'node:url';
@@ -46,6 +45,7 @@ import { Supplier } from '../server/modules/suppliers/supplier.entity.ts';
 import { User } from '../server/modules/users/user.entity.ts';
 import { startAppProcess, type AppProcess } from './lib/app-process.ts';
 import { inventedBenchNpn } from './lib/bench-fixtures.ts';
+import { pacedLoad } from './lib/paced-client.ts';
 import { clusterEnv, startCluster } from './lib/pg-cluster.ts';
 
 const PASSWORD = 'bench-load-password';
@@ -308,64 +308,36 @@ function figures(r: LoadResult, ok: number, cpu: CpuFigures): PhaseFigures {
  */
 async function pacedWrites(baseUrl: string, agents: Agent[], lot: { lotId: number; sessionId: number }, o: { rate: number; seconds: number; connections: number }) {
   const url = new URL(baseUrl);
-  const agent = new http.Agent({ keepAlive: true, maxSockets: o.connections });
   const total = Math.round(o.rate * o.seconds);
   const latencies: number[] = [];
   const statusCodes: Record<string, number> = {};
   const answered: number[] = [];
   let errors = 0;
-  let sent = 0;
-  let done = 0;
-  const t0 = performance.now() + 20;
-  const planned = (i: number) => t0 + (i * 1000) / o.rate;
-  await new Promise<void>((resolve) => {
-    const finish = () => {
-      if (++done === total) resolve();
-    };
-    const fire = () => {
-      const now = performance.now();
-      while (sent < total && planned(sent) <= now) {
-        const at = planned(sent);
-        const position = sent + 1;
-        const a = agents[sent % agents.length];
-        sent++;
-        const hfe = 150 + ((position * 37) % 140) + 0.5;
-        const vbe = 640 + ((position * 13) % 25) / 2;
-        const body = JSON.stringify({ sessionId: lot.sessionId, position, hfe, vbe, vbeUnit: 'mV' });
-        const req = http.request(
-          {
-            host: url.hostname,
-            port: url.port,
-            method: 'POST',
-            path: `/api/lots/${lot.lotId}/measurements`,
-            agent,
-            headers: { 'content-type': 'application/json', 'content-length': Buffer.byteLength(body), cookie: a.cookie, 'x-csrf-token': a.csrf },
-          },
-          (res) => {
-            res.resume();
-            res.on('end', () => {
-              latencies.push(performance.now() - at);
-              const code = String(res.statusCode);
-              statusCodes[code] = (statusCodes[code] ?? 0) + 1;
-              if (res.statusCode === 201) answered.push(position);
-              else errors++;
-              finish();
-            });
-          },
-        );
-        req.setTimeout(10_000, () => req.destroy(new Error('timeout')));
-        req.on('error', () => {
-          errors++;
-          finish();
-        });
-        req.end(body);
-      }
-      if (sent < total) setTimeout(fire, Math.max(0, planned(sent) - performance.now()));
-    };
-    setTimeout(fire, 20);
+  const { seconds } = await pacedLoad({
+    host: url.hostname,
+    port: Number(url.port),
+    rate: o.rate,
+    total,
+    connections: o.connections,
+    request: (i) => {
+      const position = i + 1;
+      const a = agents[i % agents.length];
+      const hfe = 150 + ((position * 37) % 140) + 0.5;
+      const vbe = 640 + ((position * 13) % 25) / 2;
+      const body = JSON.stringify({ sessionId: lot.sessionId, position, hfe, vbe, vbeUnit: 'mV' });
+      const head =
+        `POST /api/lots/${lot.lotId}/measurements HTTP/1.1\r\nHost: ${url.host}\r\nContent-Type: application/json\r\n` +
+        `Content-Length: ${Buffer.byteLength(body)}\r\nCookie: ${a.cookie}\r\nX-CSRF-Token: ${a.csrf}\r\n\r\n`;
+      return { bytes: Buffer.from(head + body) };
+    },
+    onAnswer: (i, { status, latencyMs }) => {
+      latencies.push(latencyMs);
+      const code = String(status);
+      statusCodes[code] = (statusCodes[code] ?? 0) + 1;
+      if (status === 201) answered.push(i + 1);
+      else errors++;
+    },
   });
-  agent.destroy();
-  const seconds = (performance.now() - t0) / 1000;
   latencies.sort((x, y) => x - y);
   const at = (q: number) => (latencies.length ? Math.round(latencies[Math.min(latencies.length - 1, Math.floor(q * latencies.length))] * 10) / 10 : 0);
   const result: LoadResult = { statusCodes, p50Ms: at(0.5), p99Ms: at(0.99), maxMs: at(1), errors, seconds: Math.round(seconds * 100) / 100 };

@@ -17,6 +17,9 @@ import { cacheSessions, guardStoreErrors, throttleTouch } from './http/session-s
 import { auditRouter } from './modules/audit/audit.routes.ts';
 import { authRouter } from './modules/auth/auth.routes.ts';
 import { createPassport } from './modules/auth/passport.ts';
+import { activeUserCache } from './modules/users/active-user-cache.ts';
+import { ReadingBatcher } from './modules/measurements/reading-batcher.ts';
+import { headersSetBy, readingLane } from './modules/measurements/reading-lane.ts';
 import { createMailTransport } from './modules/mail/mail.service.ts';
 import { mailRouter } from './modules/mail/mail.routes.ts';
 import { healthRouter } from './modules/health/health.routes.ts';
@@ -34,6 +37,9 @@ import { binsRouter } from './modules/bins/bins.routes.ts';
 import { supplierQualityRouter } from './modules/supplier-quality/supplier-quality.routes.ts';
 import { pairingRouter } from './modules/pairing/pairing.routes.ts';
 import { biasRouter } from './modules/bias/bias.routes.ts';
+
+const SESSION_COOKIE = 'bw.sid';
+const SESSION_MAX_AGE_MS = 12 * 60 * 60 * 1000;
 
 export interface AppOptions {
   dataSource: DataSource;
@@ -55,8 +61,7 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir, ma
   const app = express();
   app.disable('x-powered-by');
   app.set('trust proxy', 'loopback');
-  app.use(
-    helmet({
+  const securityHeaders = helmet({
       contentSecurityPolicy: {
         directives: {
           defaultSrc: ["'self'"],
@@ -68,35 +73,54 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir, ma
           upgradeInsecureRequests: null,
         },
       },
-    }),
-  );
+    });
 
   const PgStore = connectPgSimple(session);
   const pool = (ds.driver as unknown as { master: Pool }).master;
+  // The stored expiry is renewed at most once a minute per session (see throttleTouch); a
+  // session read is kept for authCacheMs (see cacheSessions).
+  const sessionStore = cacheSessions(
+    throttleTouch(guardStoreErrors(new PgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 })), 60_000),
+    authCacheMs,
+  );
+  const users = activeUserCache(ds, authCacheMs);
+  // Grid readings arriving together are written together (group commit, see reading-batcher.ts).
+  const readings = new ReadingBatcher(ds);
+  const jsonLimit = 1024 * 1024;
+  // Grid readings of a signed-in inspector whose session and user are in memory skip the general
+  // stack below (reading-lane.ts); every other request, and every refusal, goes through it.
+  // It sends the same security headers as helmet below (read from helmet once, headersSetBy).
+  app.use(
+    readingLane({
+      cookie: { name: SESSION_COOKIE, secret: config.sessionSecret, maxAgeMs: SESSION_MAX_AGE_MS },
+      sessions: sessionStore,
+      users,
+      readings,
+      bodyLimit: jsonLimit,
+      headers: headersSetBy(securityHeaders),
+    }),
+  );
+  app.use(securityHeaders);
+
   const api = express.Router();
-  api.use(express.json({ limit: '1mb' }));
+  api.use(express.json({ limit: jsonLimit }));
   api.use(refuseUnstorableText);
   // Before the session: health needs none, and answers its own 503 body when the database is down.
   api.use('/health', healthRouter(ds));
   api.use(
     session({
-      name: 'bw.sid',
-      // The stored expiry is renewed at most once a minute per session (see throttleTouch); a
-      // session read is kept for authCacheMs (see cacheSessions).
-      store: cacheSessions(
-        throttleTouch(guardStoreErrors(new PgStore({ pool, tableName: 'session', createTableIfMissing: false, pruneSessionInterval: 15 * 60 })), 60_000),
-        authCacheMs,
-      ),
+      name: SESSION_COOKIE,
+      store: sessionStore,
       secret: config.sessionSecret,
       resave: false,
       saveUninitialized: false,
       rolling: true,
       // secure 'auto': the cookie is marked Secure whenever the request came over HTTPS (directly or
       // from a TLS-terminating proxy on loopback, see trust proxy), and still works on plain HTTP.
-      cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: 12 * 60 * 60 * 1000 },
+      cookie: { httpOnly: true, sameSite: 'lax', secure: 'auto', maxAge: SESSION_MAX_AGE_MS },
     }),
   );
-  const passport = createPassport(ds, { userCacheMs: authCacheMs });
+  const passport = createPassport(ds, { users });
   api.use(passport.initialize());
   api.use(passport.session());
   api.use(csrfProtection);
@@ -110,7 +134,7 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir, ma
   api.use('/labels', labelsRouter(ds));
   // Bench: full paths (/sampling/plan, /lots/:id/summary, /switching/…, /bench/queue).
   api.use(samplingRouter(ds));
-  api.use(measurementsRouter(ds));
+  api.use(measurementsRouter(ds, { readings }));
   api.use(dispositionRouter(ds));
   api.use(benchRouter(ds));
   // Bins: full paths (/containers…, /stock, /lots/:id/screening…, /labels/bins.pdf).

@@ -16,10 +16,16 @@ export const requireAuth: RequestHandler = (req, _res, next) => {
   next();
 };
 
-/** Allows only the listed roles. The quality engineer passes wherever an inspector does. */
-export function requireRole(...roles: Role[]): RequestHandler {
+/** The roles a route for `roles` admits: the quality engineer passes wherever an inspector does. */
+export function rolesAllowedFor(...roles: Role[]): ReadonlySet<Role> {
   const allowed = new Set<Role>(roles);
   if (allowed.has('inspector')) allowed.add('quality');
+  return allowed;
+}
+
+/** Allows only the listed roles (see rolesAllowedFor). */
+export function requireRole(...roles: Role[]): RequestHandler {
+  const allowed = rolesAllowedFor(...roles);
   const guard: RequestHandler & { allowedRoles?: ReadonlySet<Role> } = (req, _res, next) => {
     if (!req.user) return next(AppError.unauthorized());
     if (!allowed.has(req.user.role)) {

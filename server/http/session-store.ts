@@ -54,6 +54,40 @@ export function throttleTouch<S extends Store>(store: S, intervalMs: number, max
   return store;
 }
 
+/** What the reading lane (server/modules/measurements/reading-lane.ts) needs of a cached session. */
+export interface SessionGlance {
+  /** passport's user id, when signed in. */
+  userId: number | null;
+  csrfToken: string | null;
+}
+
+export interface CachedSessionStore {
+  /**
+   * The session `sid` as this process holds it in memory, without reading the store: undefined
+   * when it is not held, or held past its TTL or past its cookie's expiry. Never reads the
+   * database, so a caller must fall back to the full path (express-session) on undefined.
+   */
+  glance(sid: string, now?: number): SessionGlance | undefined;
+}
+
+interface CachedSession {
+  json: string;
+  glance: SessionGlance;
+  /** The stored cookie's expiry (ms since the epoch), or null when it has none. */
+  expiresAt: number | null;
+}
+
+function cachedSession(sess: SessionData): CachedSession {
+  const data = sess as SessionData & { passport?: { user?: unknown } };
+  const user = data.passport?.user;
+  const expires = sess.cookie?.expires;
+  return {
+    json: JSON.stringify(sess),
+    glance: { userId: typeof user === 'number' ? user : null, csrfToken: typeof data.csrfToken === 'string' ? data.csrfToken : null },
+    expiresAt: expires ? new Date(expires).getTime() : null,
+  };
+}
+
 /**
  * Keeps each session read from the store for `ttlMs` in this process, so most requests of a
  * signed-in user do not read the session row from PostgreSQL. Writes through this process (a
@@ -62,25 +96,30 @@ export function throttleTouch<S extends Store>(store: S, intervalMs: number, max
  * text and parsed per request, because express-session changes the object it is given. A
  * cached session past its cookie's expiry is read again (the store then answers "none").
  */
-export function cacheSessions<S extends Store>(store: S, ttlMs: number): S {
-  if (ttlMs <= 0) return store;
-  const cache = new TtlCache<string, string>(ttlMs);
+export function cacheSessions<S extends Store>(store: S, ttlMs: number): S & CachedSessionStore {
   const get = store.get.bind(store);
+  const load = (sid: string) =>
+    new Promise<CachedSession | undefined>((resolve, reject) => get(sid, (err, sess) => (err ? reject(err as Error) : resolve(sess ? cachedSession(sess) : undefined))));
+  const cache = new TtlCache<string, CachedSession>(ttlMs, 20_000, load);
+  const fresh = (sid: string, now: number): CachedSession | undefined => {
+    const hit = cache.get(sid, now);
+    if (!hit) return undefined;
+    if (hit.expiresAt === null || hit.expiresAt > now) return hit;
+    cache.invalidate(sid);
+    return undefined;
+  };
+  const cached = store as S & CachedSessionStore;
+  cached.glance = (sid, now = Date.now()) => (ttlMs > 0 ? fresh(sid, now)?.glance : undefined);
+  if (ttlMs <= 0) return cached;
   store.get = (sid, callback) => {
-    const now = Date.now();
-    const json = cache.get(sid, now);
-    if (json !== undefined) {
-      const sess = JSON.parse(json) as SessionData;
-      const expires = sess.cookie?.expires;
-      if (!expires || new Date(expires).getTime() > now) {
-        callback(null, sess);
-        return;
-      }
-      cache.invalidate(sid);
+    const hit = fresh(sid, Date.now());
+    if (hit) {
+      callback(null, JSON.parse(hit.json) as SessionData);
+      return;
     }
     const ticket = cache.ticket(sid);
     get(sid, (err, sess) => {
-      if (!err && sess) cache.set(sid, JSON.stringify(sess), ticket);
+      if (!err && sess) cache.set(sid, cachedSession(sess), ticket);
       callback(err, sess);
     });
   };
@@ -100,5 +139,5 @@ export function cacheSessions<S extends Store>(store: S, ttlMs: number): S {
       callback?.(err);
     });
   };
-  return store;
+  return cached;
 }

@@ -111,9 +111,51 @@ describe('ReadingBatcher', () => {
     // Batch 2: twenty readings, the taken position and the one beyond the lot (sent on alone
     // afterwards). Batch 3: the repeated position, which waits for batch 2 to commit.
     expect(batcher.stats).toMatchObject({ batches: 3, largestBatch: 22, single: 1, failedBatches: 0 });
-    // Twenty-three readings answered by two transactions of the batcher (one INSERT each).
+    // The lot's context is known from batch 1: batch 2's twenty readings go in by one statement
+    // (no transaction block); the taken position then gets the full transaction, which finds the
+    // reading it collides with. Batch 3 likewise: its one-statement insert collides, and the full
+    // transaction answers it.
     expect(seen.filter((q) => q === 'BEGIN')).toHaveLength(2);
-    expect(seen.filter((q) => q.startsWith('INSERT INTO measurement'))).toHaveLength(2);
+    expect(seen.filter((q) => q.startsWith('INSERT INTO measurement'))).toHaveLength(4);
+    expect(seen.filter((q) => q.startsWith('SELECT m.id, m.lot_id'))).toHaveLength(2);
+  });
+
+  it('a lot whose context changed after a batch read it: the one-statement insert stores nothing, and the full write answers with the new context', async () => {
+    const { lotId, sessionId, actor } = await measuringLot(100);
+    const batcher = new ReadingBatcher(ctx.ds);
+    await batcher.record(actor, lotId, reading(sessionId, 1)); // reads and keeps the context
+    const partTypeId = ((await ctx.ds.query('SELECT part_type_id FROM lot WHERE id = $1', [lotId])) as { part_type_id: number }[])[0].part_type_id;
+
+    // The part type's temperature coefficient changes: the reading is referred to 25 °C with the
+    // new one, not the kept one.
+    await ctx.ds.query('UPDATE part_type SET hfe_tc_pct_per_c = 0 WHERE id = $1', [partTypeId]);
+    const changed = await batcher.record(actor, lotId, reading(sessionId, 2));
+    expect(changed.hfe25).toBeCloseTo(202, 9); // 0 %/°C: the same as measured at 35 °C
+    expect((await stored(lotId)).find((r) => r.position === 2)!.hfe_25).toBeCloseTo(202, 9);
+    // Its hFE limits change: the answer flags the reading against the new limits.
+    await ctx.ds.query('UPDATE part_type SET hfe_min = 250 WHERE id = $1', [partTypeId]);
+    expect((await batcher.record(actor, lotId, reading(sessionId, 6))).flags).toContain('hfe-low');
+
+    // A quantity cut below the next position: refused as beyond the lot, as before.
+    await ctx.ds.query('UPDATE lot SET quantity = 2 WHERE id = $1', [lotId]);
+    const beyond = problemOf((await settle([() => batcher.record(actor, lotId, reading(sessionId, 3))]))[0]);
+    expect(beyond.status).toBe(422);
+    await ctx.ds.query('UPDATE lot SET quantity = 100 WHERE id = $1', [lotId]);
+    await batcher.record(actor, lotId, reading(sessionId, 3));
+
+    // The session closed through another path: refused as a closed session.
+    await ctx.ds.query('UPDATE measurement_session SET closed_at = now() WHERE id = $1', [sessionId]);
+    const closed = problemOf((await settle([() => batcher.record(actor, lotId, reading(sessionId, 4))]))[0]);
+    expect(closed.status).toBe(409);
+    expect(closed.errors).toEqual([{ field: 'sessionId', message: 'session closed' }]);
+    await ctx.ds.query('UPDATE measurement_session SET closed_at = NULL WHERE id = $1', [sessionId]);
+    await batcher.record(actor, lotId, reading(sessionId, 7)); // the kept context is current again
+
+    // The lot decided meanwhile (no longer inspecting): refused as the full path refuses it.
+    await ctx.ds.query(`UPDATE lot SET status = 'accepted' WHERE id = $1`, [lotId]);
+    const decided = problemOf((await settle([() => batcher.record(actor, lotId, reading(sessionId, 5))]))[0]);
+    expect(decided.status).toBe(409);
+    expect((await stored(lotId)).map((r) => r.position)).toEqual([1, 2, 3, 6, 7]);
   });
 
   it('the first readings of a received lot queued together: one moves the lot to inspecting, the others wait for it and go in one batch', async () => {

@@ -50,11 +50,12 @@ function parseJsonField(raw: unknown, field: string): unknown {
  * Bench measurement capture and results of a lot. Writes are the inspector's (and the quality
  * engineer's); every signed-in role may read.
  */
-export function measurementsRouter(ds: DataSource): Router {
+export function measurementsRouter(ds: DataSource, opts: { readings?: ReadingBatcher } = {}): Router {
   const r = Router();
   const writer = requireRole('inspector');
-  // Grid readings arriving together are written together (group commit, see reading-batcher.ts).
-  const readings = new ReadingBatcher(ds);
+  // Grid readings arriving together are written together (group commit, see reading-batcher.ts);
+  // the app shares its batcher with the reading lane (reading-lane.ts).
+  const readings = opts.readings ?? new ReadingBatcher(ds);
 
   r.get('/lots/:id/sessions', async (req, res) => {
     res.json(await listSessions(ds, parseLotId(req.params.id)));

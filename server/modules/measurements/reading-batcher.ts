@@ -43,13 +43,15 @@ interface Pending {
 
 /**
  * What became of a reading in its batch: stored; refused as a taken position; to be recorded on
- * its own (`moves` when that moves a received lot to inspecting); or to wait for that move.
+ * its own (`moves` when that moves a received lot to inspecting); to wait for that move; or
+ * failed with the database unreachable (answered 503).
  */
 type Outcome =
   | { kind: 'stored'; row: MeasurementRow }
   | { kind: 'taken'; existingId: string | null }
   | { kind: 'single'; moves?: boolean }
-  | { kind: 'wait' };
+  | { kind: 'wait' }
+  | { kind: 'failed'; err: unknown };
 
 interface ContextRow {
   session_id: number;
@@ -93,6 +95,38 @@ const TAKEN_SQL = `
     FROM unnest($1::int[], $2::int[]) AS k(lot_id, position)
     JOIN measurement m ON m.lot_id = k.lot_id AND m.position = k.position AND NOT m.superseded`;
 
+/**
+ * The one-statement write of readings whose lot, session and part type the batcher has seen
+ * (KNOWN_SQL's k arrays carry what it saw). The statement checks in the database, under a
+ * shared lock on each lot, everything the readings were prepared with — session open, in
+ * sampling mode, same ambient; lot in a batched state and the position within its quantity;
+ * the part type's temperature coefficients and limits — and inserts only the readings whose
+ * context still holds. Alone, outside a transaction block, it is its own transaction.
+ */
+const KNOWN_SQL = `
+  INSERT INTO measurement (lot_id, session_id, position, hfe, vbe_mv, vce_sat_mv, leakage_na, hfe_25, vbe_mv_25, source, created_by)
+  SELECT t.lot_id, t.session_id, t.position, t.hfe, t.vbe_mv, t.vce_sat_mv, t.leakage_na, t.hfe_25, t.vbe_mv_25, 'grid', t.created_by
+    FROM unnest($1::int[], $2::int[], $3::int[], $4::float8[], $5::float8[], $6::float8[], $7::float8[], $8::float8[], $9::float8[], $10::int[])
+      AS t(lot_id, session_id, position, hfe, vbe_mv, vce_sat_mv, leakage_na, hfe_25, vbe_mv_25, created_by)
+    JOIN unnest($11::int[], $12::int[], $13::float8[], $14::float8[], $15::float8[], $16::float8[], $17::float8[], $18::float8[], $19::float8[])
+      AS k(lot_id, session_id, ambient_c, hfe_tc, vbe_tc, hfe_min, hfe_max, vbe_min_mv, vbe_max_mv)
+      ON k.lot_id = t.lot_id AND k.session_id = t.session_id
+    JOIN measurement_session s ON s.id = t.session_id AND s.lot_id = t.lot_id
+    JOIN lot l ON l.id = t.lot_id
+    JOIN part_type p ON p.id = l.part_type_id
+   WHERE s.closed_at IS NULL AND s.mode = 'sample' AND s.ambient_c = k.ambient_c
+     AND l.status IN ('inspecting', 'awaiting-signature') AND t.position <= l.quantity
+     AND p.hfe_tc_pct_per_c = k.hfe_tc AND p.vbe_tc_mv_per_c = k.vbe_tc
+     AND p.hfe_min IS NOT DISTINCT FROM k.hfe_min AND p.hfe_max IS NOT DISTINCT FROM k.hfe_max
+     AND p.vbe_min_mv IS NOT DISTINCT FROM k.vbe_min_mv AND p.vbe_max_mv IS NOT DISTINCT FROM k.vbe_max_mv
+   ORDER BY l.id
+     FOR SHARE OF l
+  ON CONFLICT DO NOTHING
+  RETURNING id, lot_id, position, created_at`;
+
+/** How long a lot's context read by a batch is used for the one-statement write, ms. */
+const CONTEXT_KEEP_MS = 10_000;
+
 /** How long the batcher keeps its connections after the last batch, ms. */
 const KEEP_MS = 100;
 
@@ -104,10 +138,14 @@ const floats = (v: (number | null)[]) => binaryArray(v, 0, v.length, FLOAT8);
  * Group commit for grid readings (POST /api/lots/:id/measurements).
  *
  * Readings that arrive while a batch is being written wait in this process and are written
- * together: one transaction of four statements (BEGIN; the lots, sessions and part types of the
- * batch with a shared lock on each lot; one multi-row INSERT … SELECT FROM unnest(arrays) with
- * ON CONFLICT DO NOTHING; COMMIT), whatever the number of readings. Each request is answered
- * only after its batch has committed, so an answer 201 is a stored reading.
+ * together, whatever their number. Readings of a lot whose context (session, lot, part type) a
+ * batch read in the last CONTEXT_KEEP_MS go in by one statement (KNOWN_SQL: a multi-row
+ * INSERT … SELECT FROM unnest(arrays) that checks that context again under a shared lock on each
+ * lot, with ON CONFLICT DO NOTHING) — one round trip per batch while a bench keeps measuring.
+ * The others, and any the statement did not store (context changed, position taken), get one
+ * transaction (BEGIN; the lots, sessions and part types with a shared lock on each lot; the same
+ * insert; COMMIT). Each request is answered only after its reading is committed, so an answer
+ * 201 is a stored reading.
  *
  * Every reading still gets its own answer:
  * - a reading the domain refuses (422) is answered before it is queued;
@@ -146,6 +184,8 @@ export class ReadingBatcher {
   /** Connections kept between batches (see connection()). */
   private readonly held: { client: PoolClient; onError: () => void }[] = [];
   private releaseTimer: NodeJS.Timeout | null = null;
+  /** Contexts (session, lot, part type) read by recent batches, for the one-statement write. */
+  private readonly contexts = new Map<string, { c: ContextRow; until: number }>();
 
   constructor(
     private readonly ds: DataSource,
@@ -218,17 +258,55 @@ export class ReadingBatcher {
   private async run(batch: Pending[]): Promise<void> {
     this.stats.batches++;
     this.stats.largestBatch = Math.max(this.stats.largestBatch, batch.length);
-    let outcomes: Outcome[];
+    const outcomes: (Outcome | undefined)[] = new Array<Outcome | undefined>(batch.length);
+    let client: PoolClient;
     try {
-      outcomes = await this.write(batch);
+      client = await this.connection();
     } catch (err) {
-      if (isDatabaseUnavailable(err)) {
-        for (const p of batch) p.reject(err);
-        return;
-      }
-      this.stats.failedBatches++;
-      outcomes = batch.map(() => ({ kind: 'single' }));
+      // No connection: the database is down (503 for each), or something else (each on its own).
+      if (!isDatabaseUnavailable(err)) this.stats.failedBatches++;
+      this.settle(batch, batch.map(() => (isDatabaseUnavailable(err) ? { kind: 'failed', err } : { kind: 'single' })));
+      return;
     }
+    const state = { broken: false };
+    try {
+      // Readings of lots seen in the last seconds: one statement (KNOWN_SQL).
+      try {
+        await this.writeKnown(client, batch, outcomes);
+      } catch (err) {
+        if (isDatabaseUnavailable(err)) {
+          state.broken = true;
+          this.settle(batch, batch.map(() => ({ kind: 'failed', err })));
+          return;
+        }
+        // Anything else: nothing was written (one statement); all go the full way below.
+      }
+      // The rest (new lots, changed contexts, taken positions, first readings): one transaction.
+      const rest: number[] = [];
+      for (let i = 0; i < batch.length; i++) if (outcomes[i] === undefined) rest.push(i);
+      if (rest.length) {
+        try {
+          const full = await this.transaction(client, rest.map((i) => batch[i]), state);
+          rest.forEach((i, j) => (outcomes[i] = full[j]));
+        } catch (err) {
+          if (isDatabaseUnavailable(err)) {
+            state.broken = true;
+            for (const i of rest) outcomes[i] = { kind: 'failed', err };
+          } else {
+            this.stats.failedBatches++;
+            for (const i of rest) outcomes[i] = { kind: 'single' };
+          }
+        }
+      }
+    } finally {
+      if (state.broken) client.release(true);
+      else this.keep(client);
+    }
+    this.settle(batch, outcomes as Outcome[]);
+  }
+
+  /** Answers each reading of a batch by its outcome (or sends it on its own way). */
+  private settle(batch: Pending[], outcomes: Outcome[]): void {
     const waiting: Pending[] = [];
     batch.forEach((p, i) => {
       const o = outcomes[i];
@@ -238,6 +316,8 @@ export class ReadingBatcher {
       } else if (o.kind === 'taken') {
         this.stats.batched++;
         p.reject(positionTaken(p.input.position, o.existingId));
+      } else if (o.kind === 'failed') {
+        p.reject(o.err);
       } else if (o.kind === 'wait') {
         waiting.push(p);
       } else {
@@ -260,26 +340,16 @@ export class ReadingBatcher {
     this.queue.unshift(...waiting);
   }
 
-  /** One transaction for the batch; the outcome of each reading, in order. */
-  private async write(batch: Pending[]): Promise<Outcome[]> {
-    const client = await this.connection();
-    let broken = false;
+  /** One transaction for the readings; the outcome of each, in order. */
+  private async transaction(client: PoolClient, batch: Pending[], state: { broken: boolean }): Promise<Outcome[]> {
+    await client.query('BEGIN');
     try {
-      await client.query('BEGIN');
-      try {
-        const outcomes = await this.writeIn(client, batch);
-        await client.query('COMMIT');
-        return outcomes;
-      } catch (err) {
-        await client.query('ROLLBACK').catch(() => (broken = true));
-        throw err;
-      }
+      const outcomes = await this.writeIn(client, batch);
+      await client.query('COMMIT');
+      return outcomes;
     } catch (err) {
-      if (isDatabaseUnavailable(err)) broken = true;
+      await client.query('ROLLBACK').catch(() => (state.broken = true));
       throw err;
-    } finally {
-      if (broken) client.release(true);
-      else this.keep(client);
     }
   }
 
@@ -326,6 +396,63 @@ export class ReadingBatcher {
     }
   };
 
+  /** The context a batch read for `lotId:sessionId` in the last CONTEXT_KEEP_MS, if any. */
+  private knownContext(key: string, now: number): ContextRow | undefined {
+    const hit = this.contexts.get(key);
+    if (!hit) return undefined;
+    if (hit.until > now) return hit.c;
+    this.contexts.delete(key);
+    return undefined;
+  }
+
+  private remember(rows: ContextRow[]): void {
+    const until = Date.now() + CONTEXT_KEEP_MS;
+    if (this.contexts.size + rows.length > 2_000) this.contexts.clear();
+    for (const c of rows) this.contexts.set(`${c.lot_id}:${c.session_id}`, { c, until });
+  }
+
+  /**
+   * The readings whose context was seen lately and allows a plain insert, written with one
+   * statement (KNOWN_SQL). Fills `outcomes` for the readings stored; leaves the others (context
+   * changed meanwhile, position taken, context not known) for the full write.
+   */
+  private async writeKnown(client: PoolClient, batch: Pending[], outcomes: (Outcome | undefined)[]): Promise<void> {
+    const now = Date.now();
+    const entries: Prepared[] = [];
+    const used = new Map<string, ContextRow>();
+    batch.forEach((p, index) => {
+      const key = `${p.lotId}:${p.input.sessionId}`;
+      const c = this.knownContext(key, now);
+      if (!c || !plainInsert(c, p)) return;
+      used.set(key, c);
+      entries.push(prepare(p, index, c));
+    });
+    if (entries.length === 0) return;
+    const k = [...used.values()];
+    const inserted = await client.query<InsertedRow>({
+      name: 'bw-reading-insert-known',
+      text: KNOWN_SQL,
+      values: [
+        ...columns(batch, entries),
+        ints(k.map((c) => c.lot_id)),
+        ints(k.map((c) => c.session_id)),
+        floats(k.map((c) => c.ambient_c)),
+        floats(k.map((c) => c.hfe_tc_pct_per_c)),
+        floats(k.map((c) => c.vbe_tc_mv_per_c)),
+        floats(k.map((c) => c.hfe_min)),
+        floats(k.map((c) => c.hfe_max)),
+        floats(k.map((c) => c.vbe_min_mv)),
+        floats(k.map((c) => c.vbe_max_mv)),
+      ],
+    });
+    const stored = new Map(inserted.rows.map((r) => [keyOf(r.lot_id, r.position), r]));
+    for (const e of entries) {
+      const p = batch[e.index];
+      const row = stored.get(p.key);
+      if (row) outcomes[e.index] = { kind: 'stored', row: storedRow(p, e, row) };
+    }
+  }
+
   private async writeIn(client: PoolClient, batch: Pending[]): Promise<Outcome[]> {
     const pairs = new Map<string, [number, number]>();
     for (const p of batch) pairs.set(`${p.lotId}:${p.input.sessionId}`, [p.lotId, p.input.sessionId]);
@@ -335,22 +462,11 @@ export class ReadingBatcher {
       text: CONTEXT_SQL,
       values: [ints(sorted.map((x) => x[0])), ints(sorted.map((x) => x[1]))],
     });
+    this.remember(ctx.rows);
     const contexts = new Map(ctx.rows.map((c) => [`${c.lot_id}:${c.session_id}`, c]));
 
     const outcomes: Outcome[] = batch.map(() => ({ kind: 'single' }));
-    const cols = {
-      lot: [] as number[],
-      session: [] as number[],
-      position: [] as number[],
-      hfe: [] as number[],
-      vbe: [] as number[],
-      vceSat: [] as (number | null)[],
-      leakage: [] as (number | null)[],
-      hfe25: [] as number[],
-      vbe25: [] as number[],
-      by: [] as number[],
-    };
-    const written: { index: number; c: ContextRow; hfe25: number; vbeMv25: number }[] = [];
+    const written: Prepared[] = [];
     const moved = new Set<number>();
     batch.forEach((p, index) => {
       const c = contexts.get(`${p.lotId}:${p.input.sessionId}`);
@@ -366,38 +482,12 @@ export class ReadingBatcher {
         }
         return;
       }
-      if (!BATCHED_STATUSES.has(c.status)) return;
-      const { hfe25, vbeMv25 } = normalise(p.reading, c.ambient_c, { hfeTcPctPerC: c.hfe_tc_pct_per_c, vbeTcMvPerC: c.vbe_tc_mv_per_c });
-      cols.lot.push(p.lotId);
-      cols.session.push(c.session_id);
-      cols.position.push(p.input.position);
-      cols.hfe.push(p.reading.hfe);
-      cols.vbe.push(p.reading.vbeMv);
-      cols.vceSat.push(p.reading.vceSatMv);
-      cols.leakage.push(p.reading.leakageNa);
-      cols.hfe25.push(hfe25);
-      cols.vbe25.push(vbeMv25);
-      cols.by.push(p.actor.id);
-      written.push({ index, c, hfe25, vbeMv25 });
+      if (!plainInsert(c, p)) return;
+      written.push(prepare(p, index, c));
     });
     if (written.length === 0) return outcomes;
 
-    const inserted = await client.query<{ id: string; lot_id: number; position: number; created_at: Date }>({
-      name: 'bw-reading-insert',
-      text: INSERT_SQL,
-      values: [
-        ints(cols.lot),
-        ints(cols.session),
-        ints(cols.position),
-        floats(cols.hfe),
-        floats(cols.vbe),
-        floats(cols.vceSat),
-        floats(cols.leakage),
-        floats(cols.hfe25),
-        floats(cols.vbe25),
-        ints(cols.by),
-      ],
-    });
+    const inserted = await client.query<InsertedRow>({ name: 'bw-reading-insert', text: INSERT_SQL, values: columns(batch, written) });
     const stored = new Map(inserted.rows.map((r) => [keyOf(r.lot_id, r.position), r]));
 
     const taken = written.filter((w) => !stored.has(batch[w.index].key));
@@ -411,37 +501,77 @@ export class ReadingBatcher {
       for (const r of rows.rows) takenIds.set(keyOf(r.lot_id, r.position), String(r.id));
     }
 
-    for (const { index, c, hfe25, vbeMv25 } of written) {
-      const p = batch[index];
+    for (const w of written) {
+      const p = batch[w.index];
       const row = stored.get(p.key);
-      if (!row) {
-        outcomes[index] = { kind: 'taken', existingId: takenIds.get(p.key) ?? null };
-        continue;
-      }
-      outcomes[index] = {
-        kind: 'stored',
-        row: toRow(
-          {
-            id: String(row.id),
-            sessionId: c.session_id,
-            position: p.input.position,
-            hfe: p.reading.hfe,
-            vbeMv: p.reading.vbeMv,
-            vceSatMv: p.reading.vceSatMv,
-            leakageNa: p.reading.leakageNa,
-            hfe25,
-            vbeMv25,
-            source: 'grid',
-            supersedesId: null,
-            superseded: false,
-            correctionReason: null,
-            createdAt: row.created_at,
-          },
-          { ambient_c: c.ambient_c, creator_name: p.actor.name },
-          { hfeMin: c.hfe_min, hfeMax: c.hfe_max, vbeMinMv: c.vbe_min_mv, vbeMaxMv: c.vbe_max_mv },
-        ),
-      };
+      outcomes[w.index] = row ? { kind: 'stored', row: storedRow(p, w, row) } : { kind: 'taken', existingId: takenIds.get(p.key) ?? null };
     }
     return outcomes;
   }
+}
+
+interface InsertedRow {
+  id: string;
+  lot_id: number;
+  position: number;
+  created_at: Date;
+}
+
+/** A reading ready for an insert: its place in the batch, its context, its 25 °C values. */
+interface Prepared {
+  index: number;
+  c: ContextRow;
+  hfe25: number;
+  vbeMv25: number;
+}
+
+/** Whether a reading in this context is a plain insert (sampling session open, lot in a batched state, position within the lot). */
+function plainInsert(c: ContextRow, p: Pending): boolean {
+  return !c.closed && c.mode === 'sample' && BATCHED_STATUSES.has(c.status) && p.input.position <= c.quantity;
+}
+
+function prepare(p: Pending, index: number, c: ContextRow): Prepared {
+  const { hfe25, vbeMv25 } = normalise(p.reading, c.ambient_c, { hfeTcPctPerC: c.hfe_tc_pct_per_c, vbeTcMvPerC: c.vbe_tc_mv_per_c });
+  return { index, c, hfe25, vbeMv25 };
+}
+
+/** The ten arrays of INSERT_SQL / KNOWN_SQL ($1–$10), one element per prepared reading. */
+function columns(batch: Pending[], entries: Prepared[]): Buffer[] {
+  const at = (f: (p: Pending, e: Prepared) => number | null) => entries.map((e) => f(batch[e.index], e));
+  return [
+    ints(at((p) => p.lotId) as number[]),
+    ints(at((_p, e) => e.c.session_id) as number[]),
+    ints(at((p) => p.input.position) as number[]),
+    floats(at((p) => p.reading.hfe)),
+    floats(at((p) => p.reading.vbeMv)),
+    floats(at((p) => p.reading.vceSatMv)),
+    floats(at((p) => p.reading.leakageNa)),
+    floats(at((_p, e) => e.hfe25)),
+    floats(at((_p, e) => e.vbeMv25)),
+    ints(at((p) => p.actor.id) as number[]),
+  ];
+}
+
+/** The answer for a stored reading (as recordMeasurement answers). */
+function storedRow(p: Pending, { c, hfe25, vbeMv25 }: Prepared, row: InsertedRow): MeasurementRow {
+  return toRow(
+    {
+      id: String(row.id),
+      sessionId: c.session_id,
+      position: p.input.position,
+      hfe: p.reading.hfe,
+      vbeMv: p.reading.vbeMv,
+      vceSatMv: p.reading.vceSatMv,
+      leakageNa: p.reading.leakageNa,
+      hfe25,
+      vbeMv25,
+      source: 'grid',
+      supersedesId: null,
+      superseded: false,
+      correctionReason: null,
+      createdAt: row.created_at,
+    },
+    { ambient_c: c.ambient_c, creator_name: p.actor.name },
+    { hfeMin: c.hfe_min, hfeMax: c.hfe_max, vbeMinMv: c.vbe_min_mv, vbeMaxMv: c.vbe_max_mv },
+  );
 }

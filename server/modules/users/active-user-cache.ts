@@ -1,6 +1,7 @@
 import type { DataSource } from 'typeorm';
 import type { SessionUser } from '../../../shared/api/auth.ts';
 import { TtlCache } from '../../http/ttl-cache.ts';
+import { findActiveUser } from './users.service.ts';
 
 /**
  * The signed-in users each request reloads (passport's deserializeUser), kept for a short time
@@ -11,7 +12,8 @@ import { TtlCache } from '../../http/ttl-cache.ts';
 const caches = new WeakMap<DataSource, Set<TtlCache<number, SessionUser>>>();
 
 export function activeUserCache(ds: DataSource, ttlMs: number): TtlCache<number, SessionUser> {
-  const cache = new TtlCache<number, SessionUser>(ttlMs);
+  // Refreshed ahead while in use (see TtlCache); a user no longer active drops out.
+  const cache = new TtlCache<number, SessionUser>(ttlMs, 20_000, (id) => findActiveUser(ds, id).then((u) => u ?? undefined));
   let set = caches.get(ds);
   if (!set) caches.set(ds, (set = new Set()));
   set.add(cache);
