@@ -76,7 +76,14 @@ const JSON_TYPE = /^application\/json\s*(;\s*charset="?utf-8"?\s*)?$/i;
  * in the general stack (router walk over every mounted route, session load and hashing, passport,
  * body parsing); see docs/benchmarks.md, "Load".
  */
-export function readingLane(o: ReadingLaneOptions): RequestHandler {
+/** How many requests the lane answered (taken) and passed on to the full path (POST readings only). */
+export interface ReadingLaneStats {
+  taken: number;
+  passed: number;
+}
+
+export function readingLane(o: ReadingLaneOptions): RequestHandler & { stats: ReadingLaneStats } {
+  const stats: ReadingLaneStats = { taken: 0, passed: 0 };
   const allowed = rolesAllowedFor('inspector');
   const { name, secret, maxAgeMs } = o.cookie;
   const cookieRe = new RegExp(`(?:^|;\\s*)${name.replace(/[.*+?^${}()|[\]\\]/g, '\\$&')}=([^;]*)`);
@@ -110,29 +117,34 @@ export function readingLane(o: ReadingLaneOptions): RequestHandler {
     return known;
   };
 
-  return (req, res, next) => {
+  const lane: RequestHandler = (req, res, next) => {
     if (req.method !== 'POST') return next();
     const m = PATH.exec(req.url);
     if (!m) return next();
+    const passOn = () => {
+      stats.passed++;
+      next();
+    };
     const h = req.headers;
     const type = h['content-type'];
     const length = Number(h['content-length']);
-    if (!type || !JSON_TYPE.test(type) || h['content-encoding'] || !(length >= 0 && length <= o.bodyLimit) || h['transfer-encoding']) return next();
+    if (!type || !JSON_TYPE.test(type) || h['content-encoding'] || !(length >= 0 && length <= o.bodyLimit) || h['transfer-encoding']) return passOn();
     const cookieHeader = h.cookie;
     const sent = cookieHeader ? cookieRe.exec(cookieHeader)?.[1] : undefined;
-    if (!sent) return next();
+    if (!sent) return passOn();
     const signed = sessionOf(sent);
-    if (!signed) return next();
+    if (!signed) return passOn();
     const { sid } = signed;
     const now = Date.now();
     const glance = o.sessions.glance(sid, now);
-    if (!glance || glance.userId === null || !glance.csrfToken) return next();
+    if (!glance || glance.userId === null || !glance.csrfToken) return passOn();
     const token = h['x-csrf-token'];
-    if (typeof token !== 'string' || token.length !== glance.csrfToken.length || !timingSafeEqual(Buffer.from(token), Buffer.from(glance.csrfToken))) return next();
+    if (typeof token !== 'string' || token.length !== glance.csrfToken.length || !timingSafeEqual(Buffer.from(token), Buffer.from(glance.csrfToken))) return passOn();
     const user = o.users.get(glance.userId, now);
-    if (!user || !allowed.has(user.role)) return next();
+    if (!user || !allowed.has(user.role)) return passOn();
 
     // Taken: from here on this request is answered here (or by the app's error handler).
+    stats.taken++;
     for (const [k, v] of o.headers) res.setHeader(k, v);
     const expires = new Date(now + maxAgeMs);
     const secure = req.secure;
@@ -184,4 +196,5 @@ export function readingLane(o: ReadingLaneOptions): RequestHandler {
         }, fail);
     });
   };
+  return Object.assign(lane, { stats });
 }
