@@ -223,6 +223,13 @@ async function loadRows(ctx: BenchContext): Promise<ReportRow[]> {
       target: '≥ 1 000 measurements/s',
       met: r.targets.throughput,
     },
+    {
+      measure: 'the same 50 connections: p99 of the closed loop (queueing at saturation included)',
+      result: `p99 ${r.writersAlone.p99Ms} ms at ${num(r.writersAlone.perSecond)}/s`,
+      target: 'p99 < 50 ms',
+      met: r.writersAlone.p99Ms < 50,
+      detail: true,
+    },
     { measure: 'recording alone: what the server and PostgreSQL spent', result: `${cpu(r.writersAlone)}; ${kept(r.writersAlone)}`, target: '', met: null, detail: true },
     {
       measure: `(h) load: recording paced at ${num(r.atTarget.ratePerSecond)}/s (open loop)`,

@@ -125,6 +125,14 @@ describe('the reading lane answers like the full path', () => {
     expect(laneBad.status).toBe(400);
     expect(laneBad.body).toEqual(fullBad.body);
     expect(laneBad.body.code).toBe('invalid-json');
+
+    // A body that starts with a byte-order mark is read as express.json reads it.
+    const bom = (ag: Agent, lotId: number, sessionId: number) =>
+      ag.post(`/api/lots/${lotId}/measurements`).set('x-csrf-token', ag.csrf).set('content-type', 'application/json').send(`\ufeff${JSON.stringify(ok({ sessionId }, 9))}`);
+    const laneBom = await bom(a.agent, a.lotId, a.sessionId);
+    const fullBom = await bom(b.agent, b.lotId, b.sessionId);
+    expect(laneBom.status).toBe(fullBom.status);
+    expect(laneBom.status).toBe(201);
   });
 });
 

@@ -171,7 +171,9 @@ export function readingLane(o: ReadingLaneOptions): RequestHandler & { stats: Re
     req.on('error', fail);
     req.on('end', () => {
       if (failed) return;
-      const text = (chunks.length === 1 ? chunks[0] : Buffer.concat(chunks)).toString('utf8');
+      let text = (chunks.length === 1 ? chunks[0] : Buffer.concat(chunks)).toString('utf8');
+      // express.json drops a leading byte-order mark; so does the lane.
+      if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
       let body: unknown = {};
       if (text.trim() !== '') {
         const first = text.trimStart()[0];
