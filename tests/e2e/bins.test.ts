@@ -81,8 +81,8 @@ describe('Bins in Chromium', () => {
 
     await page.getByLabel('Search').fill(lotCode);
     const table = page.getByRole('table', { name: 'Containers' });
-    await table.getByRole('row').nth(2).waitFor();
-    expect(await table.getByRole('row').count()).toBe(3);
+    // The search is applied after a short pause in typing: wait for the filtered rows (header + 2).
+    await expect.poll(() => table.getByRole('row').count(), { timeout: 10_000 }).toBe(3);
     await page.screenshot({ path: `${SHOTS}/bins-page.png`, fullPage: true });
 
     const codes = (await ctx.ds.query(`SELECT code, bin_code, quantity FROM container WHERE lot_id = $1 ORDER BY bin_code`, [lotId])) as { code: string; bin_code: string; quantity: number }[];
