@@ -15,9 +15,16 @@ export interface ReadingBatcherOptions {
   maxInFlight?: number;
   /**
    * While a batch is being written, how long (ms) newly arrived readings wait for more before
-   * a second batch starts. With nothing in flight a reading is written at once.
+   * a second batch starts. With nothing in flight see idleWaitMs.
    */
   windowMs?: number;
+  /**
+   * With nothing in flight, how long (ms) a reading waits for others before it is written; 0
+   * writes it in the next turn of the event loop. At a steady 1 000 readings/s, 2 ms gave batches
+   * of about three instead of one or two, and about a fifth less CPU per reading in the server
+   * and a third less in PostgreSQL (docs/scaling.md), for 1–2 ms more at the median.
+   */
+  idleWaitMs?: number;
 }
 
 export interface ReadingBatcherStats {
@@ -173,6 +180,7 @@ export class ReadingBatcher {
   private readonly maxBatch: number;
   private readonly maxInFlight: number;
   private readonly windowMs: number;
+  private readonly idleWaitMs: number;
   private queue: Pending[] = [];
   private inFlight = 0;
   /** lot:position of the readings in batches being written. */
@@ -195,6 +203,7 @@ export class ReadingBatcher {
     this.maxBatch = opts.maxBatch ?? 256;
     this.maxInFlight = opts.maxInFlight ?? 2;
     this.windowMs = opts.windowMs ?? 2;
+    this.idleWaitMs = opts.idleWaitMs ?? 2;
   }
 
   /** Records one grid reading; resolves once it is committed. Same answers as recordMeasurement. */
@@ -209,8 +218,9 @@ export class ReadingBatcher {
   private schedule(): void {
     if (this.queue.length === 0 || this.inFlight >= this.maxInFlight) return;
     if (this.inFlight === 0) {
-      // Idle: write now, with whatever else arrived in this turn of the event loop.
-      this.immediate ??= setImmediate(() => this.flush());
+      // Idle: write after idleWaitMs, with whatever else arrived meanwhile.
+      if (this.idleWaitMs > 0) this.timer ??= setTimeout(() => this.flush(), this.idleWaitMs);
+      else this.immediate ??= setImmediate(() => this.flush());
     } else if (this.queue.length >= this.maxBatch) {
       this.flush();
     } else {
