@@ -9,7 +9,8 @@
  *   (5) recording paced at the target's 1 000 requests/s (the p99 of the target).
  * The paced phases send each request at its planned time, evenly spaced, over up to 50 kept-alive
  * connections, whether or not earlier answers have come (an open loop), and measure each latency
- * from the planned time. autocannon's own rate limit is not used for them: it sends each
+ * from the planned time (scripts/lib/paced-client.ts, prebuilt requests on raw sockets, so the
+ * load generator takes as little as it can of the two cores it shares with the server). autocannon's own rate limit is not used for them: it sends each
  * connection's share of a second in a burst at the start of the second and then adds synthetic
  * samples for the burst's waits (coordinated-omission correction at a 1 ms interval), which
  * measured the burst, not the server (it reported a p50 of 55–130 ms at 100/s where the server
