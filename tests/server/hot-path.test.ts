@@ -1,4 +1,4 @@
-import { Store, type SessionData } from 'express-session';
+import type { SessionData, Store } from 'express-session';
 import pg from 'pg';
 import { beforeAll, describe, expect, it, vi } from 'vitest';
 import { AppError } from '../../server/http/app-error.ts';
@@ -9,6 +9,7 @@ import { makeBenchLot } from './bench-fixtures.ts';
 import { createApp } from '../../server/app.ts';
 import request from 'supertest';
 import { signedIn, useTestApp, type Agent, type TestContext } from './helpers.ts';
+import { FakeStore } from './fake-session-store.ts';
 
 // The request paths the load bench (scripts/bench-load.ts) drives: recording a reading and the lots list.
 const ctx = useTestApp();
@@ -142,34 +143,6 @@ describe('SQL statements per request on the hot paths', () => {
   });
 });
 
-class FakeStore extends Store {
-  touches = 0;
-  gets = 0;
-  getError: unknown = null;
-  sessions = new Map<string, SessionData>();
-  /** When set, get() answers only when the test calls the returned function. */
-  holdGets = false;
-  held: (() => void)[] = [];
-  get(sid: string, cb: (err: unknown, session?: SessionData | null) => void) {
-    this.gets++;
-    const s = this.sessions.get(sid) ?? null;
-    const answer = () => cb(this.getError, s && (JSON.parse(JSON.stringify(s)) as SessionData));
-    if (this.holdGets) this.held.push(answer);
-    else answer();
-  }
-  set(sid: string, s: SessionData, cb?: (err?: unknown) => void) {
-    this.sessions.set(sid, s);
-    cb?.();
-  }
-  destroy(sid: string, cb?: (err?: unknown) => void) {
-    this.sessions.delete(sid);
-    cb?.();
-  }
-  touch(_sid: string, _s: SessionData, cb?: (err?: unknown) => void) {
-    this.touches++;
-    cb?.();
-  }
-}
 
 describe('session store wrappers', () => {
   it('throttleTouch writes the expiry of a session at most once per interval, and always calls back', () => {
