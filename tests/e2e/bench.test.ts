@@ -7,6 +7,7 @@ import { Lot } from '../../server/modules/lots/lot.entity.ts';
 import { Supplier } from '../../server/modules/suppliers/supplier.entity.ts';
 import { User } from '../../server/modules/users/user.entity.ts';
 import { SHOTS, signIn, startE2e, stopE2e, type E2eContext } from './helpers.ts';
+import { inventedBenchNpn } from '../../scripts/lib/bench-fixtures.ts';
 
 let ctx: E2eContext;
 let lot: Lot;
@@ -16,27 +17,9 @@ beforeAll(async () => {
   ctx = await startE2e();
   const part = await ctx.ds.getRepository(PartType).save(
     ctx.ds.getRepository(PartType).create({
-      partNumber: `BENCH-E2E-${u}`,
-      description: 'Invented NPN small-signal for the bench test',
-      polarity: 'NPN',
-      packageName: 'TO-92',
-      hfeIcMa: 2,
-      hfeVceV: 5,
-      vbeIcMa: 2,
+      ...inventedBenchNpn(`BENCH-E2E-${u}`, 'Invented NPN small-signal for the bench test'),
       hfeMin: 100,
       hfeMax: 300,
-      vbeMinMv: 580,
-      vbeMaxMv: 700,
-      vbeTcMvPerC: -2,
-      hfeTcPctPerC: 0.5,
-      msl: 'not-classified',
-      esdHbmClass: '1B',
-      samplingMethod: 'attribute',
-      inspectionLevel: 'II',
-      aql: 1,
-      matchHfePct: 5,
-      matchVbeMv: 2,
-      active: true,
     }),
   );
   const supplier = await ctx.ds.getRepository(Supplier).save(ctx.ds.getRepository(Supplier).create({ code: `BE${u}`.slice(0, 20), name: `Larkspur Test Distribution ${u}`, approval: 'approved', notes: null }));

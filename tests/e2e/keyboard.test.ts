@@ -4,6 +4,7 @@ import { PartType } from '../../server/modules/catalog/part-type.entity.ts';
 import { Supplier, SupplierPart } from '../../server/modules/suppliers/supplier.entity.ts';
 import { makePairingPartType, makeStockLot, type StockLot } from '../server/pairing-fixtures.ts';
 import { SHOTS, startE2e, stopE2e, type E2eContext } from './helpers.ts';
+import { inventedBenchNpn } from '../../scripts/lib/bench-fixtures.ts';
 
 let ctx: E2eContext;
 const u = `K${Date.now().toString(36).toUpperCase()}`;
@@ -18,27 +19,9 @@ beforeAll(async () => {
   ctx = await startE2e();
   const part = await ctx.ds.getRepository(PartType).save(
     ctx.ds.getRepository(PartType).create({
-      partNumber: PART,
-      description: 'Invented NPN small-signal for the keyboard walk',
-      polarity: 'NPN',
-      packageName: 'TO-92',
-      hfeIcMa: 2,
-      hfeVceV: 5,
-      vbeIcMa: 2,
+      ...inventedBenchNpn(PART, 'Invented NPN small-signal for the keyboard walk'),
       hfeMin: 100,
       hfeMax: 300,
-      vbeMinMv: 580,
-      vbeMaxMv: 700,
-      vbeTcMvPerC: -2,
-      hfeTcPctPerC: 0.5,
-      msl: 'not-classified',
-      esdHbmClass: '1B',
-      samplingMethod: 'attribute',
-      inspectionLevel: 'II',
-      aql: 1,
-      matchHfePct: 5,
-      matchVbeMv: 2,
-      active: true,
     }),
   );
   const supplier = await ctx.ds.getRepository(Supplier).save(ctx.ds.getRepository(Supplier).create({ code: `KB${u}`.slice(0, 20), name: `Keyboard Test Distribution ${u}`, approval: 'approved', notes: null }));

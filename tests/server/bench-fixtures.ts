@@ -5,6 +5,7 @@ import { PartType } from '../../server/modules/catalog/part-type.entity.ts';
 import { Lot, type LotStatus } from '../../server/modules/lots/lot.entity.ts';
 import { Supplier } from '../../server/modules/suppliers/supplier.entity.ts';
 import { makeUser } from './helpers.ts';
+import { inventedBenchNpn } from '../../scripts/lib/bench-fixtures.ts';
 
 const uniq = () => randomUUID().replace(/-/g, '').slice(0, 10);
 
@@ -35,27 +36,10 @@ export async function makeBenchLot(ds: DataSource, o: FixtureOptions = {}): Prom
     o.partType ??
     (await ds.getRepository(PartType).save(
       ds.getRepository(PartType).create({
-        partNumber: `TST-${uniq()}`,
-        description: 'Test NPN small-signal',
-        polarity: 'NPN',
-        packageName: 'TO-92',
-        hfeIcMa: 2,
-        hfeVceV: 5,
-        vbeIcMa: 2,
+        // The benches' invented NPN, with the 100–300 hFE limits these tests are written against.
+        ...inventedBenchNpn(`TST-${uniq()}`, 'Test NPN small-signal'),
         hfeMin: 100,
         hfeMax: 300,
-        vbeMinMv: 580,
-        vbeMaxMv: 700,
-        vbeTcMvPerC: -2,
-        hfeTcPctPerC: 0.5,
-        msl: 'not-classified',
-        esdHbmClass: '1B',
-        samplingMethod: 'attribute',
-        inspectionLevel: 'II',
-        aql: 1.0,
-        matchHfePct: 5,
-        matchVbeMv: 2,
-        active: true,
         ...o.part,
       }),
     ));
