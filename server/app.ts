@@ -19,7 +19,7 @@ import { authRouter } from './modules/auth/auth.routes.ts';
 import { createPassport } from './modules/auth/passport.ts';
 import { activeUserCache } from './modules/users/active-user-cache.ts';
 import { ReadingBatcher } from './modules/measurements/reading-batcher.ts';
-import { headersSetBy, readingLane } from './modules/measurements/reading-lane.ts';
+import { headersSetBy, installReadingLane, readingLane } from './modules/measurements/reading-lane.ts';
 import { createMailTransport } from './modules/mail/mail.service.ts';
 import { mailRouter } from './modules/mail/mail.routes.ts';
 import { healthRouter } from './modules/health/health.routes.ts';
@@ -87,8 +87,9 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir, ma
   // Grid readings arriving together are written together (group commit, see reading-batcher.ts).
   const readings = new ReadingBatcher(ds);
   const jsonLimit = 1024 * 1024;
-  // Grid readings of a signed-in inspector whose session and user are in memory skip the general
-  // stack below (reading-lane.ts); every other request, and every refusal, goes through it.
+  // Grid readings of a signed-in inspector whose session and user are in memory skip Express and
+  // the general stack below (reading-lane.ts, installReadingLane); every other request, and every
+  // refusal, goes through it.
   // It sends the same security headers as helmet below (read from helmet once, headersSetBy).
   const lane = readingLane({
     cookie: { name: SESSION_COOKIE, secret: config.sessionSecret, maxAgeMs: SESSION_MAX_AGE_MS },
@@ -97,10 +98,11 @@ export function createApp({ dataSource: ds, config = readConfig(), clientDir, ma
     readings,
     bodyLimit: jsonLimit,
     headers: headersSetBy(securityHeaders),
+    trustProxy: app.get('trust proxy fn') as (address: string | undefined, hop: number) => boolean,
   });
   // Read by the tests (which path answered) and by nothing else.
   app.locals.readingLane = lane.stats;
-  app.use(lane);
+  installReadingLane(app, lane);
   app.use(securityHeaders);
 
   const api = express.Router();

@@ -59,6 +59,12 @@ export interface SessionGlance {
   /** passport's user id, when signed in. */
   userId: number | null;
   csrfToken: string | null;
+  /**
+   * The stored cookie's Secure flag. express-session decides 'auto' once, when it creates the
+   * session, and keeps it for the session's life; a Secure session's cookie is only sent back
+   * over HTTPS.
+   */
+  secureCookie: boolean;
 }
 
 export interface CachedSessionStore {
@@ -83,7 +89,11 @@ function cachedSession(sess: SessionData): CachedSession {
   const expires = sess.cookie?.expires;
   return {
     json: JSON.stringify(sess),
-    glance: { userId: typeof user === 'number' ? user : null, csrfToken: typeof data.csrfToken === 'string' ? data.csrfToken : null },
+    glance: {
+      userId: typeof user === 'number' ? user : null,
+      csrfToken: typeof data.csrfToken === 'string' ? data.csrfToken : null,
+      secureCookie: sess.cookie?.secure === true,
+    },
     expiresAt: expires ? new Date(expires).getTime() : null,
   };
 }

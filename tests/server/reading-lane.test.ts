@@ -1,3 +1,4 @@
+import type { IncomingMessage } from 'node:http';
 import { gzipSync } from 'node:zlib';
 import type { Express } from 'express';
 import request from 'supertest';
@@ -5,10 +6,10 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { parseBody } from '../../server/http/validate.ts';
 import { createApp } from '../../server/app.ts';
 import { plainReading, RecordMeasurementDto } from '../../server/modules/measurements/measurements.dto.ts';
-import type { ReadingLaneStats } from '../../server/modules/measurements/reading-lane.ts';
+import { isSecure, type ReadingLaneStats } from '../../server/modules/measurements/reading-lane.ts';
 import { toSessionUser, updateUser } from '../../server/modules/users/users.service.ts';
 import { makeBenchLot } from './bench-fixtures.ts';
-import { makeUser, signedIn, useTestApp, type Agent, type TestContext } from './helpers.ts';
+import { makeUser, signedIn, TEST_PASSWORD, useTestApp, type Agent, type TestContext } from './helpers.ts';
 
 // The reading lane (server/modules/measurements/reading-lane.ts): POST /api/lots/:id/measurements
 // answered without the general middleware when the session, the user and the CSRF token are known
@@ -84,6 +85,61 @@ describe('the reading lane answers like the full path', () => {
     // The reading is stored once, by the same group commit.
     const rows = (await ctx.ds.query('SELECT id FROM measurement WHERE lot_id = $1', [a.lotId])) as { id: string }[];
     expect(rows.map((r) => r.id)).toEqual([viaLane.body.id]);
+  });
+
+  it('behind a TLS proxy on loopback the renewed cookie keeps the Secure flag its session was created with, as express-session does', async () => {
+    const sid = (r: request.Response) => (r.headers['set-cookie'] as unknown as string[] | undefined)?.find((c) => c.startsWith('bw.sid='));
+    /** Signs in with or without the proxy's X-Forwarded-Proto: https, by hand (an agent would not send a Secure cookie over HTTP). */
+    const signIn = async (t: TestContext, https: boolean) => {
+      const user = await makeUser(ctx.ds, 'inspector');
+      const proto = (r: request.Test) => (https ? r.set('X-Forwarded-Proto', 'https') : r);
+      const first = await proto(request(t.app).get('/api/auth/csrf')).expect(200);
+      const login = await proto(request(t.app).post('/api/auth/login'))
+        .set('Cookie', sid(first)!.split(';')[0])
+        .set('x-csrf-token', first.body.csrfToken)
+        .send({ email: user.email, password: TEST_PASSWORD })
+        .expect(200);
+      const cookie = sid(login)!.split(';')[0];
+      const { lot } = await makeBenchLot(ctx.ds, { quantity: 50, status: 'inspecting' });
+      const opened = await request(t.app).post(`/api/lots/${lot.id}/sessions`).set('Cookie', cookie).set('x-csrf-token', first.body.csrfToken)
+        .send({ instrument: 'Lane meter', ambientC: 25, mode: 'sample' }).expect(201);
+      let position = 0;
+      const read = (viaHttps: boolean) => {
+        const r = request(t.app).post(`/api/lots/${lot.id}/measurements`).set('Cookie', cookie).set('x-csrf-token', first.body.csrfToken);
+        return (viaHttps ? r.set('X-Forwarded-Proto', 'https') : r).send({ sessionId: opened.body.id, position: ++position, hfe: 190, vbe: 651, vbeUnit: 'mV' }).expect(201);
+      };
+      return { read, createdSecure: sid(login)!.includes('; Secure') };
+    };
+    for (const createdOverHttps of [true, false]) {
+      const a = await signIn(cached, createdOverHttps);
+      const b = await signIn(uncached, createdOverHttps);
+      expect(a.createdSecure).toBe(createdOverHttps);
+      for (const readOverHttps of [true, false]) {
+        const what = `created over ${createdOverHttps ? 'HTTPS' : 'HTTP'}, reading over ${readOverHttps ? 'HTTPS' : 'HTTP'}`;
+        const taken = stats(cached.app).taken;
+        const viaLane = await a.read(readOverHttps);
+        expect(stats(cached.app).taken, what).toBe(taken + 1);
+        const viaFull = await b.read(readOverHttps);
+        const flags = (c: string | undefined) => c?.split('; ').slice(1).filter((x) => !x.startsWith('Expires=')).sort();
+        expect(flags(sid(viaLane)), what).toEqual(flags(sid(viaFull)));
+        // A Secure session's cookie is not sent back over plain HTTP; otherwise it is renewed.
+        expect(sid(viaLane) === undefined, what).toBe(createdOverHttps && !readOverHttps);
+        if (sid(viaLane)) expect(sid(viaLane)!.includes('; Secure'), what).toBe(createdOverHttps);
+      }
+    }
+  });
+
+  it('isSecure follows Express: the socket, or X-Forwarded-Proto (first value) only from a trusted peer', () => {
+    const req = (remoteAddress: string, proto?: string | string[], encrypted = false) =>
+      ({ socket: { remoteAddress, encrypted }, headers: proto === undefined ? {} : { 'x-forwarded-proto': proto } }) as unknown as IncomingMessage;
+    const loopback = (addr: string | undefined) => addr === '127.0.0.1' || addr === '::1' || addr === '::ffff:127.0.0.1';
+    expect(isSecure(req('127.0.0.1'), loopback)).toBe(false);
+    expect(isSecure(req('127.0.0.1', 'https'), loopback)).toBe(true);
+    expect(isSecure(req('127.0.0.1', 'https, http'), loopback)).toBe(true);
+    expect(isSecure(req('127.0.0.1', ' http ,https'), loopback)).toBe(false);
+    expect(isSecure(req('203.0.113.9', 'https'), loopback)).toBe(false); // an untrusted peer cannot claim https
+    expect(isSecure(req('203.0.113.9', 'http', true), loopback)).toBe(true); // its own TLS socket counts
+    expect(isSecure(req('127.0.0.1', 'http', true), loopback)).toBe(false); // a trusted proxy's word wins, as in Express
   });
 
   it('bad readings get the same problem answers through the lane as through the full path', async () => {

@@ -266,7 +266,7 @@ describe('cacheSessions refresh ahead', () => {
     s.at(T0 + 800);
     expect(await read(store, 'a')).toMatchObject({ sess: { csrfToken: 't1' }, inMemory: true });
     // Until the background load answers, the cached session is still the one given out.
-    expect(store.glance('a', T0 + 800)).toEqual({ userId: 7, csrfToken: 't1' });
+    expect(store.glance('a', T0 + 800)).toEqual({ userId: 7, csrfToken: 't1', secureCookie: false });
     expect(inner.gets).toBe(2);
     inner.holdGets = false;
     inner.held.shift()!();
@@ -285,12 +285,12 @@ describe('cacheSessions refresh ahead', () => {
     const store = cacheSessions(inner, TTL_S);
     await read(store, 'a');
     inner.sessions.set('a', sessionOf('t2', 7));
-    expect(store.glance('a', s.at(T0 + 799))).toEqual({ userId: 7, csrfToken: 't1' });
+    expect(store.glance('a', s.at(T0 + 799))).toEqual({ userId: 7, csrfToken: 't1', secureCookie: false });
     expect(inner.gets).toBe(1);
-    expect(store.glance('a', s.at(T0 + 800))).toEqual({ userId: 7, csrfToken: 't1' });
+    expect(store.glance('a', s.at(T0 + 800))).toEqual({ userId: 7, csrfToken: 't1', secureCookie: false });
     expect(inner.gets).toBe(2);
     await settle();
-    expect(store.glance('a', s.at(T0 + 900))).toEqual({ userId: 7, csrfToken: 't2' });
+    expect(store.glance('a', s.at(T0 + 900))).toEqual({ userId: 7, csrfToken: 't2', secureCookie: false });
     expect(inner.gets).toBe(2);
   });
 });

@@ -1,5 +1,7 @@
 import { createHmac, timingSafeEqual } from 'node:crypto';
-import type { Request, RequestHandler, Response } from 'express';
+import type { IncomingMessage, ServerResponse } from 'node:http';
+import type { TLSSocket } from 'node:tls';
+import type { Express, Request, RequestHandler, Response } from 'express';
 import type { SessionData, Store } from 'express-session';
 import type { SessionUser } from '../../../shared/api/auth.ts';
 import { AppError } from '../../http/app-error.ts';
@@ -22,6 +24,8 @@ export interface ReadingLaneOptions {
   bodyLimit: number;
   /** Headers every answer carries (the security headers, see headersSetBy). */
   headers: [string, string | string[]][];
+  /** The app's compiled `trust proxy` setting (`app.get('trust proxy fn')`), for the cookie's Secure flag. */
+  trustProxy: (address: string | undefined, hop: number) => boolean;
 }
 
 /**
@@ -50,6 +54,20 @@ export function headersSetBy(middleware: RequestHandler): [string, string | stri
   });
   if (!called) throw new Error('headersSetBy: the middleware did not call next at once');
   return [...set.values()];
+}
+
+/**
+ * Whether Express would call this request secure (req.secure): its protocol is https, read from
+ * the socket or, when the peer is a trusted proxy, from X-Forwarded-Proto (first value) —
+ * Express's own rule (req.protocol), for a request that has not been through Express.
+ */
+export function isSecure(req: IncomingMessage, trustProxy: ReadingLaneOptions['trustProxy']): boolean {
+  const own = (req.socket as TLSSocket).encrypted ? 'https' : 'http';
+  if (!trustProxy(req.socket.remoteAddress, 0)) return own === 'https';
+  const header = req.headers['x-forwarded-proto'];
+  const value = (Array.isArray(header) ? header[0] : header) || own;
+  const comma = value.indexOf(',');
+  return (comma !== -1 ? value.slice(0, comma) : value).trim() === 'https';
 }
 
 const PATH = /^\/api\/lots\/([1-9]\d{0,14})\/measurements$/;
@@ -82,7 +100,14 @@ export interface ReadingLaneStats {
   passed: number;
 }
 
-export function readingLane(o: ReadingLaneOptions): RequestHandler & { stats: ReadingLaneStats } {
+/**
+ * The lane's signature: Node's own request and answer (it runs before Express, see
+ * installReadingLane); `next()` hands the request to Express untouched, `next(err)` to Express
+ * with the error, for the app's error handler to answer.
+ */
+export type ReadingLane = ((req: IncomingMessage, res: ServerResponse, next: (err?: unknown) => void) => void) & { stats: ReadingLaneStats };
+
+export function readingLane(o: ReadingLaneOptions): ReadingLane {
   const stats: ReadingLaneStats = { taken: 0, passed: 0 };
   const allowed = rolesAllowedFor('inspector');
   const { name, secret, maxAgeMs } = o.cookie;
@@ -117,9 +142,9 @@ export function readingLane(o: ReadingLaneOptions): RequestHandler & { stats: Re
     return known;
   };
 
-  const lane: RequestHandler = (req, res, next) => {
+  const lane = (req: IncomingMessage, res: ServerResponse, next: (err?: unknown) => void): void => {
     if (req.method !== 'POST') return next();
-    const m = PATH.exec(req.url);
+    const m = PATH.exec(req.url ?? '');
     if (!m) return next();
     const passOn = () => {
       stats.passed++;
@@ -147,8 +172,12 @@ export function readingLane(o: ReadingLaneOptions): RequestHandler & { stats: Re
     stats.taken++;
     for (const [k, v] of o.headers) res.setHeader(k, v);
     const expires = new Date(now + maxAgeMs);
-    const secure = req.secure;
-    res.setHeader('Set-Cookie', `${name}=${signed.encoded}; Path=/; Expires=${expires.toUTCString()}; HttpOnly${secure ? '; Secure' : ''}; SameSite=Lax`);
+    const secure = glance.secureCookie;
+    // As express-session: the cookie keeps the Secure flag the session was created with, and a
+    // Secure cookie is not sent back over plain HTTP (issecure: a TLS socket, or Express's req.secure).
+    if (!secure || (req.socket as TLSSocket).encrypted || isSecure(req, o.trustProxy)) {
+      res.setHeader('Set-Cookie', `${name}=${signed.encoded}; Path=/; Expires=${expires.toUTCString()}; HttpOnly${secure ? '; Secure' : ''}; SameSite=Lax`);
+    }
     o.sessions.touch?.(sid, { cookie: { originalMaxAge: maxAgeMs, expires, httpOnly: true, path: '/', secure, sameSite: 'lax' } } as unknown as SessionData, () => {});
     const lotId = Number(m[1]);
     const chunks: Buffer[] = [];
@@ -200,3 +229,35 @@ export function readingLane(o: ReadingLaneOptions): RequestHandler & { stats: Re
   };
   return Object.assign(lane, { stats });
 }
+
+const LANE_ERROR = Symbol('reading lane error');
+
+/**
+ * Puts the lane in front of Express: every request reaches the lane first; what it passes on
+ * goes to Express as if the lane were not there, and an error it met goes to Express to be
+ * answered by the app's error handler (the first middleware, laneErrors, hands it on).
+ *
+ * In front of Express rather than as its first middleware because Express changes the
+ * prototype of every request and answer it handles (Object.setPrototypeOf in app.handle); on
+ * this V8, objects whose prototype changed outlived the young generation, so every reading's
+ * request and answer were copied to the old generation (≈ 16 kB a reading) and the server spent
+ * its time in young-generation collections of 10–20 ms (docs/scaling.md, "Third round").
+ */
+export function installReadingLane(app: Express, lane: ReadingLane): void {
+  type Handle = (req: IncomingMessage, res: ServerResponse, callback?: (err?: unknown) => void) => void;
+  const inner = app as unknown as { handle: Handle };
+  const handle = inner.handle.bind(app);
+  inner.handle = (req, res, callback) =>
+    lane(req, res, (err) => {
+      if (err !== undefined) (req as unknown as Record<symbol, unknown>)[LANE_ERROR] = err;
+      handle(req, res, callback);
+    });
+  app.use(laneErrors);
+}
+
+/** The app's first middleware: an error the lane met goes on to the error handler. */
+const laneErrors: RequestHandler = (req, _res, next) => {
+  const err = (req as unknown as Record<symbol, unknown>)[LANE_ERROR];
+  if (err === undefined) next();
+  else next(err);
+};
