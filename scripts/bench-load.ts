@@ -18,6 +18,8 @@
  * In the closed-loop phases (1–3) each connection sends its next request when its answer came,
  * so the mean latency is connections ÷ throughput (Little's law): 50 ms at 1 000/s with 50
  * connections. Their latencies measure queueing at saturation; phase 5 measures the target's.
+ * Before each phase its users' sessions are read once (touchSessions), so it starts with them in
+ * the server's caches, as in steady use.
  * Each phase is bounded in count (writers: `writes` requests) and in time (`maxSeconds`).
  * "Nothing lost": every position answered 2xx is in the database exactly once, and the rows
  * written equal the 2xx answers (a phase cut by its time limit may leave up to one in-flight
@@ -137,6 +139,21 @@ function cookieOf(res: Response): string {
   const sid = set.find((c) => c.startsWith('bw.sid='));
   if (!sid) throw new Error(`no session cookie in ${res.status} answer`);
   return sid.split(';')[0];
+}
+
+/**
+ * One GET /api/auth/me per user, a few at a time: the server reads each session and user again
+ * into its caches (2 s, see authCacheMs in server/app.ts). Run before each phase, so that a phase
+ * starts as a dock in steady use does — not with every user's first request of the phase going
+ * the full way at once because the previous phase used other users for longer than the caches
+ * keep them (that cold start is measured on its own in docs/scaling.md).
+ */
+async function touchSessions(baseUrl: string, agents: Agent[]): Promise<void> {
+  await inBatches(agents, 10, async (a) => {
+    const res = await fetch(`${baseUrl}/api/auth/me`, { headers: { cookie: a.cookie } });
+    if (res.status !== 200) throw new Error(`GET /api/auth/me answered ${res.status}`);
+    await res.arrayBuffer();
+  });
 }
 
 /** Signs in over HTTP like the client does: CSRF token, then the login that regenerates the session. */
@@ -471,18 +488,21 @@ export async function benchLoad(opts: LoadOptions = {}): Promise<LoadReport> {
     log(`Phase 1: ${connections} connections recording ${writes} measurements…`);
     const meter = cpuMeter(app.child.pid!, await postgresPids(ds));
     const lot1 = await measuringLot(ds, f, `L-LOAD-W-${Date.now()}`, writes + 1000);
+    await touchSessions(app.baseUrl, writers);
     meter.start();
     const w1 = writeLoad(app.baseUrl, writers, lot1, { connections, amount: writes, maxSeconds });
     const w1Result = await w1.done;
     const writersAlone = await accountWrites(ds, lot1.lotId, fromAutocannon(w1Result, w1.seconds()), w1.answered, meter.stop(w1.answered.length));
 
     log(`Phase 2: ${connections} connections reading the lots list for ${readSeconds} s…`);
+    await touchSessions(app.baseUrl, readers);
     meter.start();
     const r2Result = await readLoad(app.baseUrl, readers, { connections, seconds: readSeconds }).done;
     const readersAlone = figures(fromAutocannon(r2Result), r2Result['2xx'], meter.stop(r2Result['2xx']));
 
     log(`Phase 3: both at once…`);
     const lot3 = await measuringLot(ds, f, `L-LOAD-M-${Date.now()}`, writes + 1000);
+    await touchSessions(app.baseUrl, [...writers, ...readers]);
     meter.start();
     const w3 = writeLoad(app.baseUrl, writers, lot3, { connections, amount: writes, maxSeconds });
     const r3 = readLoad(app.baseUrl, readers, { connections, seconds: maxSeconds });
@@ -500,6 +520,7 @@ export async function benchLoad(opts: LoadOptions = {}): Promise<LoadReport> {
     const paceAt = async (phase: string, rate: number) => {
       log(`Phase ${phase}: recording at a steady ${rate}/s for ${pacedSeconds} s over up to ${connections} connections…`);
       const lot = await measuringLot(ds, f, `L-LOAD-P${rate}-${Date.now()}`, rate * pacedSeconds + 1000);
+      await touchSessions(app.baseUrl, writers);
       meter.start();
       const w = await pacedWrites(app.baseUrl, writers, lot, { rate, seconds: pacedSeconds, connections });
       return { ...(await accountWrites(ds, lot.lotId, w.result, w.answered, meter.stop(w.answered.length))), ratePerSecond: rate };
