@@ -6,10 +6,12 @@ import path from 'node:path';
 import type { Server } from 'node:http';
 import { build } from 'vite';
 import { createApp } from '../server/app.ts';
+import { tuneGarbageCollector } from '../server/gc-tuning.ts';
 import { releaseExpiredKits } from '../server/modules/pairing/kit-expiry.ts';
 import { bootBackend, closeServer, log, printBanner, reportStartError } from './lib/boot.ts';
 
 async function main() {
+  tuneGarbageCollector();
   const b = await bootBackend();
   try {
     const clientDir = path.resolve(process.env.BINWRIGHT_DIST_DIR ?? 'dist');

@@ -3,6 +3,7 @@ import path from 'node:path';
 import { createApp } from './app.ts';
 import { readConfig } from './config.ts';
 import { createDataSource } from './data-source.ts';
+import { tuneGarbageCollector } from './gc-tuning.ts';
 import { releaseExpiredKits } from './modules/pairing/kit-expiry.ts';
 
 /**
@@ -10,6 +11,7 @@ import { releaseExpiredKits } from './modules/pairing/kit-expiry.ts';
  * one-command start): initialise the DataSource, apply migrations, listen.
  */
 async function main() {
+  tuneGarbageCollector();
   const config = readConfig();
   const ds = createDataSource(config);
   await ds.initialize();

@@ -10,8 +10,10 @@ import type { AddressInfo } from 'node:net';
 import { createApp } from '../../server/app.ts';
 import { readConfig } from '../../server/config.ts';
 import { createDataSource } from '../../server/data-source.ts';
+import { tuneGarbageCollector } from '../../server/gc-tuning.ts';
 
 async function main() {
+  tuneGarbageCollector();
   const config = readConfig();
   const ds = createDataSource(config);
   await ds.initialize();
