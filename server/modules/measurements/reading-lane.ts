@@ -186,7 +186,8 @@ export function readingLane(o: ReadingLaneOptions): ReadingLane {
     const fail = (err: unknown) => {
       if (failed) return;
       failed = true;
-      next(err);
+      // Never "no error": the body is read, so Express must answer with the error handler.
+      next(err ?? new Error('The reading failed without a reason.'));
     };
     req.on('data', (c: Buffer) => {
       size += c.length;
@@ -238,10 +239,12 @@ const LANE_ERROR = Symbol('reading lane error');
  * answered by the app's error handler (the first middleware, laneErrors, hands it on).
  *
  * In front of Express rather than as its first middleware because Express changes the
- * prototype of every request and answer it handles (Object.setPrototypeOf in app.handle), and on
- * this V8 (Node 20) objects whose prototype was changed survive young-generation collections: in
- * the load bench the server copied ≈ 16 kB a reading to the old generation, ≈ 6 kB in front of
- * Express, and its CPU per reading fell from 0.35 to 0.2 ms (docs/scaling.md, "Third round").
+ * prototype of every request and answer it handles (Object.setPrototypeOf in app.handle). In a
+ * small server under the load bench's paced load, doing just that made ~1.3 MB of requests
+ * survive each young-generation collection (Node's HTTP server alone: none); in the bench the
+ * server copied ≈ 16 kB a reading to the old generation, ≈ 6 kB with the lane in front (and
+ * ~0.1 kB once V8's pretenuring was off too, see server/gc-tuning.ts), and its CPU per reading at
+ * saturation fell from 0.35 to 0.2 ms (docs/scaling.md, "Third round").
  */
 export function installReadingLane(app: Express, lane: ReadingLane): void {
   type Handle = (req: IncomingMessage, res: ServerResponse, callback?: (err?: unknown) => void) => void;
