@@ -1,6 +1,8 @@
 import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { SessionUser } from '../../shared/api/auth.ts';
 import { PartType } from '../../server/modules/catalog/part-type.entity.ts';
+import { cancelKit, reserveKit } from '../../server/modules/pairing/kits.service.ts';
 import { Supplier, SupplierPart } from '../../server/modules/suppliers/supplier.entity.ts';
 import { makePairingPartType, makeStockLot, type StockLot } from '../server/pairing-fixtures.ts';
 import { SHOTS, startE2e, stopE2e, type E2eContext } from './helpers.ts';
@@ -227,6 +229,18 @@ describe('keyboard only: Pairing', () => {
     expect(presses, 'the note is a few Tab presses after the plan result').toBeLessThanOrEqual(4);
     await expectFocus(page, 'the reservation note', (f) => f.name === 'Note (optional)');
     await page.keyboard.type('Keyboard walk');
+    // Meanwhile another assembler reserves two of the three pairs: Enter is refused, and the focus
+    // goes to why (not to the page, as the busy Reserve button would leave it).
+    const [other] = (await ctx.ds.query(`SELECT id, email, name, role FROM app_user WHERE email = 'assembler@harrowpoint.test'`)) as SessionUser[];
+    const taken = await reserveKit(ctx.ds, other!, { partTypeId: stock.partTypeId, mode: 'same', setSize: 2, setsWanted: 2, note: 'Taken meanwhile' });
+    await page.keyboard.press('Enter');
+    await page.getByTestId('reserve-refused').getByText('Nothing was reserved', { exact: true }).waitFor();
+    await expectFocus(page, 'the refusal', (f) => /Nothing was reserved/.test(f.text) && /only 1 of the 2 sets/.test(f.text));
+    await page.getByText(/at most 1 set can be made now$/).waitFor(); // the Sets wanted field says it too
+    await page.screenshot({ path: `${SHOTS}/keyboard-pairing-refused.png` });
+    // That kit is cancelled; Tab goes on from the refusal to the note, and Enter reserves.
+    await cancelKit(ctx.ds, other!, taken.id, { reason: 'Keyboard walk: given back' });
+    await tabTo(page, 'the reservation note again', (f) => f.tag === 'input' && f.name === 'Note (optional)');
     await page.keyboard.press('Enter');
     await page.waitForURL(/\/pairing\/kits\/\d+$/);
     await page.getByRole('heading', { level: 1, name: /^Kit KIT-/ }).waitFor();
@@ -261,11 +275,16 @@ describe('keyboard only: Pairing', () => {
     await page.keyboard.press('Tab');
     await expectFocus(page, 'the kit label link', (f) => f.tag === 'a' && f.text === 'Print the kit label');
     await page.screenshot({ path: `${SHOTS}/keyboard-pairing-complete.png` });
-    const [kit] = (await ctx.ds.query(
-      `SELECT k.status FROM kit_request k WHERE EXISTS (SELECT 1 FROM kit_part kp WHERE kp.kit_id = k.id AND kp.lot_id = $1)`,
+    // The lot's kits: the one taken meanwhile, cancelled; the one reserved and pulled here.
+    const kits = (await ctx.ds.query(
+      `SELECT k.id, k.status FROM kit_request k WHERE EXISTS (SELECT 1 FROM kit_part kp WHERE kp.kit_id = k.id AND kp.lot_id = $1) ORDER BY k.id`,
       [stock.lotId],
-    )) as { status: string }[];
-    expect(kit?.status).toBe('pulled');
+    )) as { id: number; status: string }[];
+    const shown = Number(/\/pairing\/kits\/(\d+)$/.exec(page.url())![1]);
+    expect(kits.map((k) => [k.id === shown ? 'this walk' : 'taken meanwhile', k.status])).toEqual([
+      ['taken meanwhile', 'cancelled'],
+      ['this walk', 'pulled'],
+    ]);
     await page.close();
   });
 });

@@ -63,7 +63,7 @@ async function reserveInTransaction(m: EntityManager, actor: SessionUser, req: C
       plan.setsPossible === 0
         ? `The stock on hand makes no ${r.setSize === 2 ? 'pair' : 'quad'} within ${r.hfeTolerancePct} % hFE and ${r.vbeToleranceMv} mV Vbe. Nothing was reserved.`
         : `The stock on hand makes only ${plan.setsPossible} of the ${r.setsWanted} sets wanted at these tolerances. Nothing was reserved; ask for ${plan.setsPossible} or widen the tolerances.`,
-      [{ field: 'setsWanted', message: `at most ${plan.setsPossible} sets can be made now` }],
+      [{ field: 'setsWanted', message: `at most ${plan.setsPossible} ${plan.setsPossible === 1 ? 'set' : 'sets'} can be made now` }],
     );
   }
   const now = new Date();

@@ -46,6 +46,15 @@ export function KitRequestForm({ stock, onReserved }: { stock: PairingStockRow[]
   useEffect(() => {
     if (plan.data) resultRef.current?.focus();
   }, [plan.data]);
+  // A refused reservation takes the focus to why (the Reserve button, disabled while busy, would
+  // drop it to the page): the notice, or the reserve form's first field in error.
+  const refusedRef = useRef<HTMLDivElement>(null);
+  const reserveFormRef = useRef<HTMLFormElement>(null);
+  useEffect(() => {
+    if (!reserve.error) return;
+    const target = refusedRef.current ?? reserveFormRef.current?.querySelector<HTMLElement>('[aria-invalid="true"]');
+    target?.focus();
+  }, [reserve.error]);
   const error = (reserve.error ?? plan.error) as Error | null;
   const apiErr = error instanceof ApiError ? error : null;
   const fe = (f: string) => apiErr?.fieldError(f);
@@ -165,18 +174,23 @@ export function KitRequestForm({ stock, onReserved }: { stock: PairingStockRow[]
         </div>
       </form>
       {error && !FIELDS.some((f) => fe(f)) && (
-        <Notice tone="fail" title={reserve.error ? 'Nothing was reserved' : 'The plan could not be made'}>
-          {error.message}
-        </Notice>
+        <div ref={reserve.error ? refusedRef : undefined} tabIndex={-1} className="rounded-md" data-testid={reserve.error ? "reserve-refused" : "plan-failed"}>
+          <Notice tone="fail" title={reserve.error ? 'Nothing was reserved' : 'The plan could not be made'}>
+            {error.message}
+          </Notice>
+        </div>
       )}
       {reserve.error && apiErr?.fieldError('setsWanted') && (
-        <Notice tone="fail" title="Nothing was reserved">
-          {apiErr.problem.detail}
-        </Notice>
+        <div ref={refusedRef} tabIndex={-1} className="rounded-md" data-testid="reserve-refused">
+          <Notice tone="fail" title="Nothing was reserved">
+            {apiErr.problem.detail}
+          </Notice>
+        </div>
       )}
       {p && <KitPlanView plan={p} resultRef={resultRef} />}
       {reservable && (
         <form
+          ref={reserveFormRef}
           aria-label="Reserve the plan"
           className="grid items-end gap-3 rounded-lg border border-copper bg-copper-light/40 p-3 sm:grid-cols-[12rem_1fr_auto]"
           onSubmit={(e) => {
