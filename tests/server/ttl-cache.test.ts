@@ -62,15 +62,21 @@ function stubs(start: number, random: number) {
   };
 }
 
+/** A refreshing cache holding 'k' = 'old' since T0, with the clock stubbed (random picks the refresh point). */
+function cacheWithOldEntry(random: number) {
+  const s = stubs(T0, random);
+  const { calls, refresh } = controlledRefresh<string>();
+  const cache = new TtlCache<string, string>(TTL, 100, refresh);
+  cache.set('k', 'old', cache.ticket('k'), s.at(T0));
+  return { s, calls, cache };
+}
+
 const T0 = 1_000_000;
 const TTL = 1_000;
 
 describe('TtlCache refresh ahead', () => {
   it('a read before the refresh point reloads nothing; the first read at it starts one reload and still answers the cached value', async () => {
-    const s = stubs(T0, 0); // random 0: the refresh point is 40 % of the TTL
-    const { calls, refresh } = controlledRefresh<string>();
-    const cache = new TtlCache<string, string>(TTL, 100, refresh);
-    cache.set('k', 'old', cache.ticket('k'), s.at(T0));
+    const { s, calls, cache } = cacheWithOldEntry(0); // random 0: the refresh point is 40 % of the TTL
     expect(cache.get('k', s.at(T0 + 399))).toBe('old');
     expect(calls).toHaveLength(0);
     expect(cache.get('k', s.at(T0 + 400))).toBe('old');
@@ -85,10 +91,7 @@ describe('TtlCache refresh ahead', () => {
   });
 
   it('with random 1 the refresh point is 80 % of the TTL', () => {
-    const s = stubs(T0, 1);
-    const { calls, refresh } = controlledRefresh<string>();
-    const cache = new TtlCache<string, string>(TTL, 100, refresh);
-    cache.set('k', 'old', cache.ticket('k'), s.at(T0));
+    const { s, calls, cache } = cacheWithOldEntry(1);
     expect(cache.get('k', s.at(T0 + 799))).toBe('old');
     expect(calls).toHaveLength(0);
     expect(cache.get('k', s.at(T0 + 800))).toBe('old');
@@ -96,10 +99,7 @@ describe('TtlCache refresh ahead', () => {
   });
 
   it('the reloaded value replaces the entry with a TTL counted from the reload, and gets its own refresh point', async () => {
-    const s = stubs(T0, 0);
-    const { calls, refresh } = controlledRefresh<string>();
-    const cache = new TtlCache<string, string>(TTL, 100, refresh);
-    cache.set('k', 'old', cache.ticket('k'), s.at(T0));
+    const { s, calls, cache } = cacheWithOldEntry(0);
     expect(cache.get('k', s.at(T0 + 400))).toBe('old');
     s.at(T0 + 500);
     calls[0].reload.resolve('new');
@@ -119,10 +119,7 @@ describe('TtlCache refresh ahead', () => {
   });
 
   it('a reload that finds nothing (signed out, deactivated) drops the entry at once', async () => {
-    const s = stubs(T0, 0);
-    const { calls, refresh } = controlledRefresh<string>();
-    const cache = new TtlCache<string, string>(TTL, 100, refresh);
-    cache.set('k', 'old', cache.ticket('k'), s.at(T0));
+    const { s, calls, cache } = cacheWithOldEntry(0);
     expect(cache.get('k', s.at(T0 + 400))).toBe('old');
     calls[0].reload.resolve(undefined);
     await settle();
@@ -131,10 +128,7 @@ describe('TtlCache refresh ahead', () => {
   });
 
   it('a failed reload leaves the entry to expire at its TTL, without another reload on each read', async () => {
-    const s = stubs(T0, 0);
-    const { calls, refresh } = controlledRefresh<string>();
-    const cache = new TtlCache<string, string>(TTL, 100, refresh);
-    cache.set('k', 'old', cache.ticket('k'), s.at(T0));
+    const { s, calls, cache } = cacheWithOldEntry(0);
     expect(cache.get('k', s.at(T0 + 400))).toBe('old');
     calls[0].reload.reject(new Error('database down'));
     await settle();
